@@ -1,0 +1,108 @@
+// A lift job as plain data, in SI units. The parser (job_file.hpp) builds it;
+// everything after the parser reads it and nothing else.
+#pragma once
+
+#include <optional>
+#include <string>
+#include <vector>
+
+namespace plumb {
+
+// One travel move of the support (trolley, bridge or jib) along its axis.
+// The move accelerates, coasts at top_speed and decelerates to rest; if it is
+// too short to reach top_speed it becomes a triangle (or, with a jerk limit, a
+// profile with a lower peak speed). distance may be negative: travel backwards.
+struct Move {
+    double distance = 0;            // m, signed
+    double top_speed = 0;           // m/s, > 0
+    double acceleration = 0;        // m/s^2, > 0
+    double deceleration = 0;        // m/s^2, > 0
+    std::optional<double> jerk;     // m/s^3, > 0: S-curve; none: step changes of acceleration
+    double pause_before = 0;        // s, >= 0: standstill before the move starts
+};
+
+// One row of a tabulated speed history (a drive log): speed is taken as linear
+// between rows, so the acceleration is constant between rows.
+struct SpeedSample {
+    double time = 0;   // s
+    double speed = 0;  // m/s, signed
+};
+
+struct SupportMotionSpec {
+    std::vector<Move> moves;                 // either moves ...
+    std::vector<SpeedSample> speed_history;  // ... or a speed history (exactly one is non-empty)
+    std::string speed_history_file;          // where the history came from, for the report
+};
+
+struct Hoist {
+    double rope_length = 0;                          // m, sheave (or trolley) to hook block
+    int parts_of_line = 1;                           // falls of rope carrying the hook block
+    double rated_load = 0;                           // N, the hoist's rated load at the hook (WLL)
+    std::optional<double> rope_wll;                  // N, per line (one part of line)
+    std::optional<double> rope_minimum_breaking_load;  // N, per line
+};
+
+struct HookBlock {
+    double mass = 0;  // kg
+};
+
+struct Rigging {
+    double length = 0;             // m, hook to the load's centre of gravity
+    int legs = 1;                  // sling legs from the hook
+    int legs_bearing = 1;          // legs taken to share the load (rigging practice, see docs)
+    double leg_angle_from_horizontal = 0;  // rad, in (0, pi/2]; pi/2 for a single vertical leg
+    std::optional<double> leg_wll;  // N, per leg
+};
+
+struct Load {
+    double mass = 0;                 // kg
+    double radius_of_gyration = 0;   // m, about the centre of gravity, in the swing plane; 0: point mass
+    double initial_angle = 0;        // rad, hoist rope and rigging swung together as one straight line
+    double initial_rate = 0;         // rad/s
+};
+
+struct Environment {
+    double gravity = 9.80665;  // m/s^2
+};
+
+// Any subset of limits; a missing limit is not checked.
+struct Limits {
+    std::optional<double> hook_rope_angle;     // rad, hoist rope from vertical
+    std::optional<double> load_angle;          // rad, rigging (hook to load CG) from vertical
+    std::optional<double> load_offset;         // m, horizontal offset of the load CG from the support
+    std::optional<double> residual_swing;      // m, load offset amplitude after the last move ends
+    std::optional<double> rope_tension_share;  // fraction of the rated load (and of the rope WLL per line)
+    std::optional<double> sling_leg_share;     // fraction of the leg WLL
+    std::optional<double> dynamic_factor;      // peak hoist rope tension over static
+    double caution_fraction = 0.9;             // a value above this share of its limit is a CAUTION
+};
+
+enum class IntegratorMethod {
+    runge_kutta,  // Fehlberg 7(8) on a fixed-size state with dense output: fastest for the rigid model
+    cvode_adams,  // SUNDIALS CVODE, Adams-Moulton
+    cvode_bdf,    // SUNDIALS CVODE, BDF (stiff)
+};
+
+struct AnalysisSettings {
+    std::optional<double> duration_after;  // s of free swing after the last move; none: automatic
+    double output_step = 0.05;             // s, spacing of the CSV time series
+    double relative_tolerance = 1e-8;
+    double absolute_tolerance = 1e-10;     // rad and rad/s
+    IntegratorMethod integrator = IntegratorMethod::runge_kutta;
+};
+
+struct Job {
+    std::string title;
+    std::string reference;
+    std::string source_file;  // the job file, for the report
+    SupportMotionSpec motion;
+    Hoist hoist;
+    HookBlock hook_block;
+    Rigging rigging;
+    Load load;
+    Environment environment;
+    Limits limits;
+    AnalysisSettings analysis;
+};
+
+}  // namespace plumb

@@ -1,0 +1,56 @@
+// The motion of the support (trolley, bridge or jib head) along its travel axis,
+// as a chain of pieces of constant jerk. Piece boundaries are the exact times
+// where acceleration or jerk jumps; the integrator restarts there.
+#pragma once
+
+#include <cstddef>
+#include <vector>
+
+#include "plumb/job.hpp"
+
+namespace plumb {
+
+struct SupportState {
+    double position = 0;      // m
+    double speed = 0;         // m/s
+    double acceleration = 0;  // m/s^2
+};
+
+// One piece: on [start, end] the jerk is constant. The last piece of a motion
+// is the support at rest after the last move, with end = +infinity.
+struct MotionPiece {
+    double start = 0;
+    double end = 0;
+    SupportState at_start;
+    double jerk = 0;  // m/s^3
+
+    SupportState at(double t) const;
+};
+
+class SupportMotion {
+public:
+    // Build from moves; validate() of the parser has already rejected bad data.
+    static SupportMotion from_moves(const std::vector<Move>& moves);
+    // Build from a speed history: speed linear between samples, at rest after the last.
+    static SupportMotion from_speed_history(const std::vector<SpeedSample>& samples);
+    static SupportMotion from_spec(const SupportMotionSpec& spec);
+
+    // The state at time t, evaluated on the piece that holds t (t < 0: at rest at 0).
+    SupportState at(double t) const;
+    // The state at time t evaluated on a given piece, so that at a switch time
+    // the integrator sees the left or right limit as it needs.
+    SupportState at(double t, std::size_t piece) const { return pieces_[piece].at(t); }
+
+    const std::vector<MotionPiece>& pieces() const { return pieces_; }
+    // Time when the support comes to rest for good after the last move.
+    double end_of_motion() const;
+    // The largest |acceleration| anywhere in the motion.
+    double peak_acceleration() const;
+    double peak_speed() const;
+    double final_position() const;
+
+private:
+    std::vector<MotionPiece> pieces_;
+};
+
+}  // namespace plumb
