@@ -1,1 +1,154 @@
-// to be written
+// The plumb command: `plumb check JOB` and `plumb modes JOB`.
+// Every failure is caught once, here, and becomes one "plumb: error:" line on
+// stderr and the exit status of errors.hpp.
+#include <exception>
+#include <iostream>
+#include <map>
+#include <string>
+#include <utility>
+#include <vector>
+
+#include <CLI/CLI.hpp>
+
+#include "plumb/assessment.hpp"
+#include "plumb/errors.hpp"
+#include "plumb/job_file.hpp"
+#include "plumb/modes.hpp"
+#include "plumb/report.hpp"
+
+#ifndef PLUMB_VERSION
+#define PLUMB_VERSION "0.1.0"
+#endif
+
+namespace {
+
+struct Options {
+    std::string job_path;
+    std::string json_path;
+    std::string csv_path;
+    plumb::UnitSystem units = plumb::UnitSystem::si;
+};
+
+void add_units_option(CLI::App& command, Options& options) {
+    static const std::map<std::string, plumb::UnitSystem> names = {
+        {"si", plumb::UnitSystem::si}, {"us", plumb::UnitSystem::us_customary}};
+    command.add_option("--units", options.units,
+                       "Units of the output: si (m, t, kN, m/s) or us (ft, lb, lbf, ft/min); "
+                       "angles are in degrees in both. Default: si")
+        ->transform(CLI::CheckedTransformer(names, CLI::ignore_case))
+        ->option_text("si|us");
+}
+
+void add_job_argument(CLI::App& command, Options& options) {
+    command.add_option("JOB", options.job_path, "The lift job file (YAML)")
+        ->required()
+        ->check(CLI::ExistingFile);
+}
+
+int run_check(const Options& options) {
+    if (!options.json_path.empty() && options.json_path == options.csv_path) {
+        throw plumb::UsageError("--json and --csv name the same file '" + options.json_path + "'");
+    }
+    const plumb::Job job = plumb::load_job_file(options.job_path);
+    const plumb::LiftAssessment assessment = plumb::assess_lift(job, !options.csv_path.empty());
+
+    // Everything is formatted before anything is written, and the files are
+    // written all or none, so a failure leaves no partial output behind.
+    const std::string summary = plumb::format_summary(assessment, options.units);
+    std::vector<std::pair<std::string, std::string>> files;
+    if (!options.json_path.empty()) {
+        files.emplace_back(options.json_path, plumb::format_json(assessment, options.units));
+    }
+    if (!options.csv_path.empty()) {
+        files.emplace_back(options.csv_path, plumb::format_csv(assessment, options.units));
+    }
+    plumb::write_files_atomically(files);
+
+    std::cout << summary;
+    for (const auto& [path, content] : files) std::cout << "Wrote " << path << "\n";
+    std::cout << std::flush;
+
+    const bool slack = assessment.prediction.hoist_rope_slack_time.has_value() ||
+                       assessment.prediction.rigging_slack_time.has_value();
+    if (assessment.overall == plumb::Verdict::fail || slack) {
+        return static_cast<int>(plumb::ExitStatus::check_failed);
+    }
+    return static_cast<int>(plumb::ExitStatus::all_checks_pass);
+}
+
+int run_modes(const Options& options) {
+    const plumb::Job job = plumb::load_job_file(options.job_path);
+    const plumb::SwingModes modes =
+        plumb::linear_swing_modes(plumb::RigidPendulumParameters::from_job(job));
+    std::cout << plumb::format_modes(job, modes, options.units) << std::flush;
+    return 0;
+}
+
+void print_error(const std::string& message) {
+    std::cout.flush();
+    std::cerr << "plumb: error: " << message << "\n";
+}
+
+int run(int argc, char** argv) {
+    CLI::App app{
+        "plumb: swing and tension check of a crane lift.\n"
+        "Simulates the hook block and load hanging under the moving trolley or bridge as a\n"
+        "planar two-link pendulum and checks swing and rope and sling tensions against the\n"
+        "limits in the job file. A planning aid only: verify against the crane manufacturer's\n"
+        "load charts and instructions; local regulations and the competent person govern.",
+        "plumb"};
+    app.set_version_flag("--version", "plumb " PLUMB_VERSION);
+    app.require_subcommand(1);
+    app.footer(
+        "Exit status: 0 every check passes (CAUTION included), 1 a check fails,\n"
+        "2 bad input, command line or output file, 3 numerical or internal failure.");
+
+    Options options;
+    CLI::App* check = app.add_subcommand(
+        "check", "Simulate the lift, check it against the job's limits and print the summary");
+    add_job_argument(*check, options);
+    check->add_option("--json", options.json_path, "Also write the results as JSON to FILE")
+        ->option_text("FILE");
+    check->add_option("--csv", options.csv_path,
+                      "Also write the time series (one row per output step) as CSV to FILE")
+        ->option_text("FILE");
+    add_units_option(*check, options);
+
+    CLI::App* modes = app.add_subcommand(
+        "modes", "Print the two natural swing modes (periods, frequencies, shapes) of the job");
+    add_job_argument(*modes, options);
+    add_units_option(*modes, options);
+
+    try {
+        app.parse(argc, argv);
+    } catch (const CLI::Success& e) {  // --help, --help-all, --version
+        return app.exit(e);
+    } catch (const CLI::ParseError& e) {
+        print_error(std::string(e.what()) + " (see 'plumb --help')");
+        return static_cast<int>(plumb::ExitStatus::bad_input);
+    }
+
+    if (check->parsed()) return run_check(options);
+    return run_modes(options);
+}
+
+}  // namespace
+
+int main(int argc, char** argv) {
+    try {
+        return run(argc, argv);
+    } catch (const plumb::Error& e) {
+        print_error(e.what());
+        return e.exit_code();
+    } catch (const std::bad_alloc&) {
+        print_error("internal error: out of memory");
+        return static_cast<int>(plumb::ExitStatus::numerical_failure);
+    } catch (const std::exception& e) {
+        print_error(std::string("internal error: ") + e.what() +
+                    "; no results were produced (please report this)");
+        return static_cast<int>(plumb::ExitStatus::numerical_failure);
+    } catch (...) {
+        print_error("internal error of unknown kind; no results were produced (please report this)");
+        return static_cast<int>(plumb::ExitStatus::numerical_failure);
+    }
+}

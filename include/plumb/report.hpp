@@ -3,6 +3,7 @@
 #pragma once
 
 #include <string>
+#include <utility>
 #include <vector>
 
 #include "plumb/assessment.hpp"
@@ -24,5 +25,10 @@ std::string format_csv(const LiftAssessment& a, UnitSystem units);
 // Write to a temporary file beside path, then rename over it: a reader never
 // sees a partial file. Throws OutputError.
 void write_file_atomically(const std::string& path, const std::string& content);
+
+// Several files, all or none: every file is staged beside its target first; if
+// any cannot be staged, no target is touched. Then each is renamed into place.
+// Pairs of (path, content). Throws OutputError.
+void write_files_atomically(const std::vector<std::pair<std::string, std::string>>& files);
 
 }  // namespace plumb
