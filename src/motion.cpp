@@ -1,1 +1,191 @@
-// to be written
+// Support motion as pieces of constant jerk. See motion.hpp.
+#include "plumb/motion.hpp"
+
+#include <algorithm>
+#include <cmath>
+#include <limits>
+
+namespace plumb {
+namespace {
+
+constexpr double infinity = std::numeric_limits<double>::infinity();
+// Pieces shorter than this come from rounding (a coast of zero length, say)
+// and are dropped rather than forcing the integrator to restart for nothing.
+constexpr double shortest_piece = 1e-12;  // s
+
+// One phase of a move in the move's own direction: duration and jerk, or a
+// constant acceleration when jerk is zero.
+struct Phase {
+    double duration;
+    double jerk;
+    double acceleration;  // used only when jerk == 0
+};
+
+// Time to change speed by dv >= 0 at acceleration limit a and jerk limit j
+// (j <= 0: no jerk limit). The acceleration profile is symmetric in time, so
+// the distance covered is dv * time / 2 plus the starting speed times time.
+double speed_change_time(double dv, double a, double j) {
+    if (j <= 0) return dv / a;
+    if (dv >= a * a / j) return dv / a + a / j;  // reaches full acceleration
+    return 2 * std::sqrt(dv / j);                // triangle of acceleration
+}
+
+void append_speed_change(std::vector<Phase>& phases, double dv, double a, double j, double sign) {
+    if (dv <= 0) return;
+    if (j <= 0) {
+        phases.push_back({dv / a, 0, sign * a});
+    } else if (dv >= a * a / j) {
+        phases.push_back({a / j, sign * j, 0});
+        phases.push_back({dv / a - a / j, 0, sign * a});
+        phases.push_back({a / j, -sign * j, 0});
+    } else {
+        const double ramp = std::sqrt(dv / j);
+        phases.push_back({ramp, sign * j, 0});
+        phases.push_back({ramp, -sign * j, 0});
+    }
+}
+
+// Distance to accelerate to v and stop again (no coast).
+double start_stop_distance(const Move& m, double v) {
+    const double j = m.jerk.value_or(0);
+    return v * (speed_change_time(v, m.acceleration, j) + speed_change_time(v, m.deceleration, j)) / 2;
+}
+
+// The speed the move actually reaches: its top speed, or less when the move is
+// too short (a triangle profile, or its jerk-limited equivalent).
+double reached_speed(const Move& m) {
+    const double distance = std::fabs(m.distance);
+    if (start_stop_distance(m, m.top_speed) <= distance) return m.top_speed;
+    if (!m.jerk) {
+        // v^2/(2a) + v^2/(2d) = distance
+        const double a = m.acceleration, d = m.deceleration;
+        return std::sqrt(2 * distance * a * d / (a + d));
+    }
+    // start_stop_distance grows strictly with v: bisect to machine precision.
+    double lo = 0, hi = m.top_speed;
+    for (int i = 0; i < 200 && hi - lo > 1e-15 * m.top_speed; ++i) {
+        const double mid = (lo + hi) / 2;
+        (start_stop_distance(m, mid) < distance ? lo : hi) = mid;
+    }
+    return (lo + hi) / 2;
+}
+
+std::vector<Phase> move_phases(const Move& m) {
+    const double sign = m.distance < 0 ? -1.0 : 1.0;
+    const double j = m.jerk.value_or(0);
+    const double v = reached_speed(m);
+    std::vector<Phase> phases;
+    append_speed_change(phases, v, m.acceleration, j, sign);
+    const double coast = (std::fabs(m.distance) - start_stop_distance(m, v)) / v;
+    if (coast > shortest_piece) phases.push_back({coast, 0, 0});
+    append_speed_change(phases, v, m.deceleration, j, -sign);
+    return phases;
+}
+
+class PieceBuilder {
+public:
+    // Extend the motion by a piece; a piece that continues the previous one
+    // exactly (constant acceleration, the same value: rest after rest) is merged.
+    void add(double duration, double acceleration, double jerk) {
+        if (duration <= shortest_piece) return;
+        SupportState s = state_;
+        if (jerk == 0) s.acceleration = acceleration;
+        if (!pieces_.empty() && jerk == 0 && pieces_.back().jerk == 0 &&
+            pieces_.back().at_start.acceleration == s.acceleration) {
+            pieces_.back().end += duration;
+        } else {
+            const double start = pieces_.empty() ? 0.0 : pieces_.back().end;
+            pieces_.push_back({start, start + duration, s, jerk});
+        }
+        state_ = pieces_.back().at(pieces_.back().end);
+    }
+    // Rounding must not leave the support creeping: a move ends at rest, exactly.
+    void settle_at(double position) { state_ = {position, 0, 0}; }
+
+    // The support rests for good after the last piece.
+    std::vector<MotionPiece> finish() && {
+        add(infinity, 0, 0);
+        if (pieces_.empty()) pieces_.push_back({0, infinity, {}, 0});
+        pieces_.back().end = infinity;
+        return std::move(pieces_);
+    }
+
+private:
+    std::vector<MotionPiece> pieces_;
+    SupportState state_;
+};
+
+}  // namespace
+
+SupportState MotionPiece::at(double t) const {
+    const double dt = std::min(t, end) - start;
+    const double a0 = at_start.acceleration;
+    const bool at_rest = a0 == 0 && jerk == 0 && at_start.speed == 0;  // also on the endless last piece
+    if (dt <= 0 || at_rest) return at_start;
+    return {at_start.position + dt * (at_start.speed + dt * (a0 / 2 + dt * jerk / 6)),
+            at_start.speed + dt * (a0 + dt * jerk / 2), a0 + dt * jerk};
+}
+
+SupportMotion SupportMotion::from_moves(const std::vector<Move>& moves) {
+    PieceBuilder builder;
+    double position = 0;
+    for (const Move& m : moves) {
+        builder.add(m.pause_before, 0, 0);
+        for (const Phase& p : move_phases(m)) builder.add(p.duration, p.acceleration, p.jerk);
+        position += m.distance;
+        builder.settle_at(position);
+    }
+    SupportMotion motion;
+    motion.pieces_ = std::move(builder).finish();
+    return motion;
+}
+
+SupportMotion SupportMotion::from_speed_history(const std::vector<SpeedSample>& samples) {
+    PieceBuilder builder;
+    if (!samples.empty()) builder.add(samples.front().time, 0, 0);
+    for (std::size_t i = 1; i < samples.size(); ++i) {
+        const double dt = samples[i].time - samples[i - 1].time;
+        builder.add(dt, (samples[i].speed - samples[i - 1].speed) / dt, 0);
+    }
+    SupportMotion motion;
+    motion.pieces_ = std::move(builder).finish();
+    return motion;
+}
+
+SupportMotion SupportMotion::from_spec(const SupportMotionSpec& spec) {
+    return spec.moves.empty() ? from_speed_history(spec.speed_history) : from_moves(spec.moves);
+}
+
+SupportState SupportMotion::at(double t) const {
+    if (t < 0) return pieces_.front().at_start;
+    auto after = std::upper_bound(pieces_.begin(), pieces_.end(), t,
+                                  [](double time, const MotionPiece& p) { return time < p.start; });
+    return std::prev(after)->at(t);
+}
+
+double SupportMotion::end_of_motion() const { return pieces_.back().start; }
+
+double SupportMotion::peak_acceleration() const {
+    double peak = 0;
+    for (const MotionPiece& p : pieces_) {
+        peak = std::max({peak, std::fabs(p.at_start.acceleration), std::fabs(p.at(p.end).acceleration)});
+    }
+    return peak;
+}
+
+double SupportMotion::peak_speed() const {
+    double peak = 0;
+    for (const MotionPiece& p : pieces_) {
+        peak = std::max({peak, std::fabs(p.at_start.speed), std::fabs(p.at(p.end).speed)});
+        // Within a piece of constant jerk the speed is quadratic: look at its vertex too.
+        if (p.jerk != 0) {
+            const double t = p.start - p.at_start.acceleration / p.jerk;
+            if (t > p.start && t < p.end) peak = std::max(peak, std::fabs(p.at(t).speed));
+        }
+    }
+    return peak;
+}
+
+double SupportMotion::final_position() const { return pieces_.back().at_start.position; }
+
+}  // namespace plumb

@@ -1,1 +1,101 @@
-// to be written
+// The rigid planar two-link pendulum. Every formula here is derived in
+// docs/model.md; the section names in the comments point there.
+#include <cmath>
+
+#include "plumb/model.hpp"
+
+namespace plumb {
+
+RigidPendulumParameters RigidPendulumParameters::from_job(const Job& job) {
+    RigidPendulumParameters p;
+    p.hook_block_mass = job.hook_block.mass;
+    p.load_mass = job.load.mass;
+    p.rope_length = job.hoist.rope_length;
+    p.rigging_length = job.rigging.length;
+    p.radius_of_gyration = job.load.radius_of_gyration;
+    p.gravity = job.environment.gravity;
+    return p;
+}
+
+RigidPendulumModel::RigidPendulumModel(const RigidPendulumParameters& p, SupportMotion motion,
+                                       double initial_angle, double initial_rate)
+    : p_(p), motion_(std::move(motion)), initial_angle_(initial_angle), initial_rate_(initial_rate) {}
+
+RigidPendulumModel RigidPendulumModel::from_job(const Job& job) {
+    return RigidPendulumModel(RigidPendulumParameters::from_job(job), SupportMotion::from_spec(job.motion),
+                              job.load.initial_angle, job.load.initial_rate);
+}
+
+std::vector<double> RigidPendulumModel::initial_state() const {
+    return {initial_angle_, initial_angle_, initial_rate_, initial_rate_};
+}
+
+// docs/model.md, "Equations of motion": M(q) q'' = r(q, q', a), solved by the
+// 2x2 inverse. M is positive definite for any angles (its determinant is
+// m2 L1^2 [(m1 + m2 sin^2(th1-th2)) L2^2 + (m1+m2) k^2] > 0).
+void RigidPendulumModel::angular_accelerations(double a, double theta1, double theta2, double omega1,
+                                               double omega2, double& alpha1, double& alpha2) const {
+    const double m1 = p_.hook_block_mass, m2 = p_.load_mass;
+    const double L1 = p_.rope_length, L2 = p_.rigging_length, k = p_.radius_of_gyration, g = p_.gravity;
+    const double c = std::cos(theta1 - theta2), s = std::sin(theta1 - theta2);
+    const double M11 = (m1 + m2) * L1 * L1;
+    const double M12 = m2 * L1 * L2 * c;
+    const double M22 = m2 * (L2 * L2 + k * k);
+    const double r1 = -m2 * L1 * L2 * s * omega2 * omega2 -
+                      (m1 + m2) * L1 * (g * std::sin(theta1) + a * std::cos(theta1));
+    const double r2 = m2 * L1 * L2 * s * omega1 * omega1 - m2 * L2 * (g * std::sin(theta2) + a * std::cos(theta2));
+    const double det = M11 * M22 - M12 * M12;
+    alpha1 = (M22 * r1 - M12 * r2) / det;
+    alpha2 = (M11 * r2 - M12 * r1) / det;
+}
+
+void RigidPendulumModel::derivatives(double t, std::size_t interval, std::span<const double> x,
+                                     std::span<double> dxdt) const {
+    const double a = motion_.at(t, interval).acceleration;
+    dxdt[0] = x[2];
+    dxdt[1] = x[3];
+    angular_accelerations(a, x[0], x[1], x[2], x[3], dxdt[2], dxdt[3]);
+}
+
+// docs/model.md, "Tensions": Newton's second law for the load, then for the
+// hook block; the rope and rigging are massless two-force members.
+Observation RigidPendulumModel::observe(double t, std::size_t interval, std::span<const double> x) const {
+    const double L1 = p_.rope_length, L2 = p_.rigging_length, g = p_.gravity;
+    const double th1 = x[0], th2 = x[1], w1 = x[2], w2 = x[3];
+    Observation o;
+    o.time = t;
+    o.support = motion_.at(t, interval);
+    double al1 = 0, al2 = 0;
+    angular_accelerations(o.support.acceleration, th1, th2, w1, w2, al1, al2);
+
+    const double s1 = std::sin(th1), c1 = std::cos(th1), s2 = std::sin(th2), c2 = std::cos(th2);
+    o.hook_rope_angle = th1;
+    o.load_angle = th2;
+    o.hook_rope_rate = w1;
+    o.load_rate = w2;
+    o.hook_x = L1 * s1;
+    o.hook_z = -L1 * c1;
+    o.load_x = o.hook_x + L2 * s2;
+    o.load_z = o.hook_z - L2 * c2;
+
+    // Absolute accelerations of hook block (1) and load CG (2).
+    const double ax1 = o.support.acceleration + L1 * (al1 * c1 - w1 * w1 * s1);
+    const double az1 = L1 * (al1 * s1 + w1 * w1 * c1);
+    const double ax2 = ax1 + L2 * (al2 * c2 - w2 * w2 * s2);
+    const double az2 = az1 + L2 * (al2 * s2 + w2 * w2 * c2);
+
+    // Force of the rigging on the load, and of the rope on the hook block.
+    const double fx2 = p_.load_mass * ax2, fz2 = p_.load_mass * (az2 + g);
+    const double fx1 = p_.hook_block_mass * ax1 + fx2, fz1 = p_.hook_block_mass * (az1 + g) + fz2;
+    o.rigging_tension = -fx2 * s2 + fz2 * c2;      // along the rigging, toward the hook
+    o.hoist_rope_tension = -fx1 * s1 + fz1 * c1;   // along the rope, toward the support
+    return o;
+}
+
+double RigidPendulumModel::static_hoist_rope_tension() const {
+    return (p_.hook_block_mass + p_.load_mass) * p_.gravity;
+}
+
+double RigidPendulumModel::static_rigging_tension() const { return p_.load_mass * p_.gravity; }
+
+}  // namespace plumb

@@ -1,1 +1,173 @@
-// to be written
+// Run a model and record what the checks need. Peaks come from each step's
+// interpolant: sampled at a few points, then refined by Brent's method, so a
+// peak between output samples is not missed or flattened.
+#include "plumb/simulation.hpp"
+
+#include <array>
+#include <boost/math/tools/minima.hpp>
+#include <cmath>
+#include <limits>
+
+namespace plumb {
+
+double quantity_value(const Observation& o, Quantity q) {
+    switch (q) {
+        case Quantity::hook_rope_angle: return std::fabs(o.hook_rope_angle);
+        case Quantity::load_angle: return std::fabs(o.load_angle);
+        case Quantity::load_offset: return std::fabs(o.load_x);
+        case Quantity::hoist_rope_tension: return o.hoist_rope_tension;
+        case Quantity::rigging_tension: return o.rigging_tension;
+    }
+    return 0;
+}
+
+namespace {
+
+// Interior samples per step; with the step sizes the error control picks, a
+// quantity has at most one extremum between neighbouring samples.
+constexpr int samples_per_step = 6;
+
+// The extreme (largest, or smallest when seeking the minimum) of one quantity.
+struct ExtremeTracker {
+    Quantity quantity;
+    bool minimum = false;
+    Peak* out = nullptr;
+    bool seen = false;
+
+    double score(double value) const { return minimum ? -value : value; }
+};
+
+class Recorder final : public StepSink {
+public:
+    Recorder(const SwingModel& model, const SimulationRequest& request, double residual_from,
+             SimulationResult& result)
+        : model_(model), request_(request), residual_from_(residual_from), result_(result),
+          x_(2 * model.degrees_of_freedom()) {
+        auto track = [](Quantity q, Peak& p, bool minimum = false) { return ExtremeTracker{q, minimum, &p}; };
+        whole_run_ = {track(Quantity::hook_rope_angle, result.hook_rope_angle),
+                      track(Quantity::load_angle, result.load_angle),
+                      track(Quantity::load_offset, result.load_offset),
+                      track(Quantity::hoist_rope_tension, result.hoist_rope_tension),
+                      track(Quantity::rigging_tension, result.rigging_tension),
+                      track(Quantity::hoist_rope_tension, result.least_hoist_rope_tension, true),
+                      track(Quantity::rigging_tension, result.least_rigging_tension, true)};
+        residual_ = {track(Quantity::load_offset, result.residual_load_offset),
+                     track(Quantity::hook_rope_angle, result.residual_hook_rope_angle),
+                     track(Quantity::load_angle, result.residual_load_angle)};
+        result.first_crossing.assign(request.watch.size(), std::nullopt);
+    }
+
+    void on_step(const DenseStep& step) override {
+        step_ = &step;
+        for (int j = 0; j <= samples_per_step; ++j) {
+            times_[j] = step.t_begin + (step.t_end - step.t_begin) * j / samples_per_step;
+            samples_[j] = observe(times_[j]);
+        }
+        for (ExtremeTracker& tracker : whole_run_) update(tracker);
+        // The motion's end is a break, so a step lies wholly before or after it.
+        if (step.t_begin >= residual_from_) {
+            for (ExtremeTracker& tracker : residual_) update(tracker);
+        }
+        for (std::size_t i = 0; i < request_.watch.size(); ++i) {
+            if (!result_.first_crossing[i]) result_.first_crossing[i] = crossing(request_.watch[i]);
+        }
+        record_time_series();
+    }
+
+private:
+    Observation observe(double t) {
+        step_->state_at(t, x_);
+        return model_.observe(t, step_->interval, x_);
+    }
+    double value_at(double t, Quantity q) { return quantity_value(observe(t), q); }
+
+    void update(ExtremeTracker& tracker) {
+        int best = 0;
+        for (int j = 1; j <= samples_per_step; ++j) {
+            if (tracker.score(quantity_value(samples_[j], tracker.quantity)) >
+                tracker.score(quantity_value(samples_[best], tracker.quantity))) {
+                best = j;
+            }
+        }
+        const double sampled = tracker.score(quantity_value(samples_[best], tracker.quantity));
+        const double so_far = tracker.seen ? tracker.score(tracker.out->value) : -std::numeric_limits<double>::infinity();
+        // The true extremum may lie up to one sample either side of the best
+        // sample and beat it a little: refine whenever it could beat the record.
+        if (sampled < so_far - 0.05 * std::fabs(so_far)) return;
+        Peak candidate{tracker.score(sampled), times_[best]};
+        const double lo = times_[std::max(best - 1, 0)], hi = times_[std::min(best + 1, samples_per_step)];
+        if (hi > lo) {
+            auto negative_score = [&](double t) { return -tracker.score(value_at(t, tracker.quantity)); };
+            const auto [t, f] = boost::math::tools::brent_find_minima(negative_score, lo, hi,
+                                                                      std::numeric_limits<double>::digits / 2);
+            if (-f > sampled) candidate = {tracker.score(-f), t};
+        }
+        if (!tracker.seen || tracker.score(candidate.value) > so_far) {
+            *tracker.out = candidate;
+            tracker.seen = true;
+        }
+    }
+
+    // First time in this step the watched level is reached, found by bisection
+    // on the interpolant between the samples that bracket it.
+    std::optional<double> crossing(const WatchLevel& w) {
+        auto reached = [&](double value) { return w.below ? value <= w.level : value >= w.level; };
+        for (int j = 0; j <= samples_per_step; ++j) {
+            if (!reached(quantity_value(samples_[j], w.quantity))) continue;
+            if (j == 0) return times_[0];
+            double before = times_[j - 1], after = times_[j];
+            for (int i = 0; i < 60 && after - before > 1e-12; ++i) {
+                const double mid = (before + after) / 2;
+                (reached(value_at(mid, w.quantity)) ? after : before) = mid;
+            }
+            return after;
+        }
+        return std::nullopt;
+    }
+
+    void record_time_series() {
+        if (request_.output_step <= 0) return;
+        for (;;) {
+            const double t = static_cast<double>(next_output_) * request_.output_step;
+            if (t > step_->t_end + 1e-9 * request_.output_step) break;
+            result_.trace.push_back(observe(std::clamp(t, step_->t_begin, step_->t_end)));
+            ++next_output_;
+        }
+    }
+
+    const SwingModel& model_;
+    const SimulationRequest& request_;
+    double residual_from_;
+    SimulationResult& result_;
+    std::vector<double> x_;
+    const DenseStep* step_ = nullptr;
+    std::array<double, samples_per_step + 1> times_{};
+    std::array<Observation, samples_per_step + 1> samples_{};
+    std::array<ExtremeTracker, 7> whole_run_{};
+    std::array<ExtremeTracker, 3> residual_{};
+    long next_output_ = 0;
+};
+
+// Integration intervals: the motion's pieces, cut at the end time.
+std::vector<double> integration_breaks(const SupportMotion& motion, double end_time) {
+    std::vector<double> breaks;
+    for (const MotionPiece& piece : motion.pieces()) {
+        if (piece.start < end_time) breaks.push_back(piece.start);
+    }
+    breaks.push_back(end_time);
+    return breaks;
+}
+
+}  // namespace
+
+SimulationResult simulate(const SwingModel& model, const SimulationRequest& request) {
+    SimulationResult result;
+    result.residual_from = std::min(model.motion().end_of_motion(), request.end_time);
+    Recorder recorder(model, request, result.residual_from, result);
+    const std::vector<double> breaks = integration_breaks(model.motion(), request.end_time);
+    const std::vector<double> x0 = model.initial_state();
+    result.stats = integrate(model, x0, breaks, request.integrator, recorder);
+    return result;
+}
+
+}  // namespace plumb

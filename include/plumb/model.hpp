@@ -35,7 +35,7 @@ struct Observation {
     double hook_x = 0, hook_z = 0;  // m, hook block relative to the support (z up)
     double load_x = 0, load_z = 0;  // m, load CG relative to the support (z up)
     double hoist_rope_tension = 0;  // N, total over all parts of line
-    double rigging_tension = 0;     // N, resultant force between hook and rigging
+    double rigging_tension = 0;     // N, force of the rigging on the load along the rigging (toward the hook)
 };
 
 class SwingModel : public SecondOrderSystem {
@@ -81,8 +81,8 @@ public:
     const RigidPendulumParameters& parameters() const { return p_; }
 
     // Angular accelerations for a given support acceleration: the core of the model.
-    void angular_accelerations(double support_acceleration, double theta1, double omega1,
-                               double theta2, double omega2, double& alpha1, double& alpha2) const;
+    void angular_accelerations(double support_acceleration, double theta1, double theta2,
+                               double omega1, double omega2, double& alpha1, double& alpha2) const;
 
 private:
     RigidPendulumParameters p_;
