@@ -23,9 +23,9 @@ double quantity_value(const Observation& o, Quantity q) {
 
 namespace {
 
-// Interior samples per step; with the step sizes the error control picks, a
+// Sample intervals per step; with the step sizes the error control picks, a
 // quantity has at most one extremum between neighbouring samples.
-constexpr int samples_per_step = 6;
+constexpr int samples_per_step = 4;
 
 // The extreme (largest, or smallest when seeking the minimum) of one quantity.
 struct ExtremeTracker {
@@ -58,11 +58,18 @@ public:
     }
 
     void on_step(const DenseStep& step) override {
+        // The first sample is the last one of the previous step, unless a break
+        // (where the support's acceleration may jump) lies between them.
+        const bool continues = step_seen_ && step.interval == last_interval_ && step.t_begin == times_.back();
         step_ = &step;
-        for (int j = 0; j <= samples_per_step; ++j) {
+        if (continues) samples_[0] = samples_.back();
+        for (int j = continues ? 1 : 0; j <= samples_per_step; ++j) {
             times_[j] = step.t_begin + (step.t_end - step.t_begin) * j / samples_per_step;
             samples_[j] = observe(times_[j]);
         }
+        times_[0] = step.t_begin;
+        step_seen_ = true;
+        last_interval_ = step.interval;
         for (ExtremeTracker& tracker : whole_run_) update(tracker);
         // The motion's end is a break, so a step lies wholly before or after it.
         if (step.t_begin >= residual_from_) {
@@ -82,21 +89,35 @@ private:
     double value_at(double t, Quantity q) { return quantity_value(observe(t), q); }
 
     void update(ExtremeTracker& tracker) {
+        auto score_at = [&](int j) { return tracker.score(quantity_value(samples_[j], tracker.quantity)); };
         int best = 0;
         for (int j = 1; j <= samples_per_step; ++j) {
-            if (tracker.score(quantity_value(samples_[j], tracker.quantity)) >
-                tracker.score(quantity_value(samples_[best], tracker.quantity))) {
-                best = j;
-            }
+            if (score_at(j) > score_at(best)) best = j;
         }
-        const double sampled = tracker.score(quantity_value(samples_[best], tracker.quantity));
-        const double so_far = tracker.seen ? tracker.score(tracker.out->value) : -std::numeric_limits<double>::infinity();
-        // The true extremum may lie up to one sample either side of the best
-        // sample and beat it a little: refine whenever it could beat the record.
-        if (sampled < so_far - 0.05 * std::fabs(so_far)) return;
+        const double sampled = score_at(best);
         Peak candidate{tracker.score(sampled), times_[best]};
-        const double lo = times_[std::max(best - 1, 0)], hi = times_[std::min(best + 1, samples_per_step)];
-        if (hi > lo) {
+        const double so_far = tracker.seen ? tracker.score(tracker.out->value) : -std::numeric_limits<double>::infinity();
+        // A parabola through the best sample and its neighbours estimates how far
+        // the true extremum between samples rises above it. Refine (Brent's method
+        // on the interpolant) only where that could beat the record; the margin
+        // covers the parabola's own error, which is of higher order.
+        const int mid = std::clamp(best, 1, samples_per_step - 1);
+        const double f0 = score_at(mid - 1), f1 = score_at(mid), f2 = score_at(mid + 1);
+        const double curvature = f0 - 2 * f1 + f2;  // negative at a maximum
+        double lo = times_[best], hi = times_[best];
+        double estimate = sampled;
+        if (curvature < 0) {
+            const double vertex = 0.5 * (f0 - f2) / curvature;  // in samples from mid
+            const double vertex_value = f1 - 0.125 * (f2 - f0) * (f2 - f0) / curvature;
+            // The extremum lies between the best sample and a neighbour on the
+            // side of the vertex (for a best sample at an end of the step, only
+            // the part inside this step: the next step searches the rest).
+            const double at = mid + vertex;
+            if (at > best && best < samples_per_step) hi = times_[best + 1];
+            if (at < best && best > 0) lo = times_[best - 1];
+            if (hi > lo) estimate = std::max(sampled, vertex_value);
+        }
+        if (hi > lo && estimate + 0.5 * (estimate - sampled) + 1e-12 * std::fabs(so_far) >= so_far) {
             auto negative_score = [&](double t) { return -tracker.score(value_at(t, tracker.quantity)); };
             const auto [t, f] = boost::math::tools::brent_find_minima(negative_score, lo, hi,
                                                                       std::numeric_limits<double>::digits / 2);
@@ -141,6 +162,8 @@ private:
     SimulationResult& result_;
     std::vector<double> x_;
     const DenseStep* step_ = nullptr;
+    bool step_seen_ = false;
+    std::size_t last_interval_ = 0;
     std::array<double, samples_per_step + 1> times_{};
     std::array<Observation, samples_per_step + 1> samples_{};
     std::array<ExtremeTracker, 7> whole_run_{};
