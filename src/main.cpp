@@ -100,7 +100,7 @@ int run(int argc, char** argv) {
     app.set_version_flag("--version", "plumb " PLUMB_VERSION);
     app.require_subcommand(1);
     app.footer(
-        "Exit status: 0 every check passes (CAUTION included), 1 a check fails,\n"
+        "Exit status: 0 no check fails (PASS or CAUTION), 1 a check fails,\n"
         "2 bad input, command line or output file, 3 numerical or internal failure.");
 
     Options options;

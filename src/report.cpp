@@ -318,16 +318,30 @@ std::string verdict_banner(const LiftAssessment& a) {
     return out;
 }
 
+// The limits a job may give: JSON key, words for the summary, unit.
+struct LimitRow {
+    const char* key;
+    const char* words;
+    std::optional<double> Limits::*member;
+    Dimension dimension;
+};
+
+constexpr LimitRow limit_table[] = {
+    {"hook_rope_angle", "hook rope angle", &Limits::hook_rope_angle, Dimension::angle},
+    {"load_angle", "load angle", &Limits::load_angle, Dimension::angle},
+    {"load_offset", "load offset", &Limits::load_offset, Dimension::length},
+    {"residual_swing", "residual swing", &Limits::residual_swing, Dimension::length},
+    {"rope_tension_share", "rope tension share", &Limits::rope_tension_share, Dimension::ratio},
+    {"sling_leg_share", "sling leg share", &Limits::sling_leg_share, Dimension::ratio},
+    {"dynamic_factor", "dynamic factor", &Limits::dynamic_factor, Dimension::ratio},
+};
+
 // Limits the job does not give, in words, so a reader sees what was not checked.
 std::vector<std::string> limits_not_given(const Limits& l) {
     std::vector<std::string> out;
-    if (!l.hook_rope_angle) out.push_back("hook rope angle");
-    if (!l.load_angle) out.push_back("load angle");
-    if (!l.load_offset) out.push_back("load offset");
-    if (!l.residual_swing) out.push_back("residual swing");
-    if (!l.rope_tension_share) out.push_back("rope tension share");
-    if (!l.sling_leg_share) out.push_back("sling leg share");
-    if (!l.dynamic_factor) out.push_back("dynamic factor");
+    for (const LimitRow& row : limit_table) {
+        if (!(l.*row.member)) out.push_back(row.words);
+    }
     return out;
 }
 
@@ -349,14 +363,16 @@ std::string mode_shape_words(double load_per_hook_angle) {
 double frequency_hz(const SwingMode& m) { return m.angular_frequency / (2.0 * std::numbers::pi); }
 
 std::string modes_table(const SwingModes& modes) {
-    TextTable t({"mode", "period", "frequency", "angular freq.", "load/hook angle", "shape"},
+    TextTable t({"mode", "period", "frequency", "angular freq.", "load/hook angle", "swing"},
                 "lrrrrl");
     const std::pair<const char*, const SwingMode*> rows[] = {{"1 (slow)", &modes.first},
                                                              {"2 (fast)", &modes.second}};
     for (const auto& [name, m] : rows) {
         t.add({name, seconds(m->period), num(frequency_hz(*m)) + " Hz",
                num(m->angular_frequency) + " rad/s", num(m->load_per_hook_angle),
-               mode_shape_words(m->load_per_hook_angle)});
+               m->load_per_hook_angle > 0   ? "hook and load together"
+               : m->load_per_hook_angle < 0 ? "hook and load opposed"
+                                            : "load still"});
     }
     return t.render();
 }
@@ -565,6 +581,15 @@ json optional_time(const std::optional<double>& t) { return t ? json(*t) : json(
 
 json seconds_json(double t) { return quantity_json(t, Dimension::time, UnitSystem::si); }
 
+json limits_json(const Limits& l, UnitSystem u) {
+    json out = json::object();
+    for (const LimitRow& row : limit_table) {
+        out[row.key] = optional_quantity_json(l.*row.member, row.dimension, u);
+    }
+    out["caution_fraction"] = quantity_json(l.caution_fraction, Dimension::ratio, u);
+    return out;
+}
+
 json job_json(const LiftAssessment& a, UnitSystem u) {
     const Job& job = a.job;
     const MotionDigest m = digest_motion(job.motion);
@@ -578,7 +603,6 @@ json job_json(const LiftAssessment& a, UnitSystem u) {
         {"end_of_motion", seconds_json(a.prediction.end_of_motion)},
     };
     if (m.from_history) motion["speed_history_file"] = job.motion.speed_history_file;
-    const Limits& l = job.limits;
     return {
         {"title", job.title},
         {"reference", job.reference},
@@ -605,15 +629,7 @@ json job_json(const LiftAssessment& a, UnitSystem u) {
           {"initial_angle", quantity_json(job.load.initial_angle, Dimension::angle, u)},
           {"initial_rate", quantity_json(job.load.initial_rate, Dimension::angular_rate, u)}}},
         {"environment", {{"gravity", quantity_json(job.environment.gravity, Dimension::acceleration, u)}}},
-        {"limits",
-         {{"hook_rope_angle", optional_quantity_json(l.hook_rope_angle, Dimension::angle, u)},
-          {"load_angle", optional_quantity_json(l.load_angle, Dimension::angle, u)},
-          {"load_offset", optional_quantity_json(l.load_offset, Dimension::length, u)},
-          {"residual_swing", optional_quantity_json(l.residual_swing, Dimension::length, u)},
-          {"rope_tension_share", optional_quantity_json(l.rope_tension_share, Dimension::ratio, u)},
-          {"sling_leg_share", optional_quantity_json(l.sling_leg_share, Dimension::ratio, u)},
-          {"dynamic_factor", optional_quantity_json(l.dynamic_factor, Dimension::ratio, u)},
-          {"caution_fraction", quantity_json(l.caution_fraction, Dimension::ratio, u)}}},
+        {"limits", limits_json(job.limits, u)},
         {"analysis",
          {{"duration_after", job.analysis.duration_after ? seconds_json(*job.analysis.duration_after)
                                                          : json(nullptr)},

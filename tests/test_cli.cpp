@@ -1,0 +1,238 @@
+// The plumb command as a user runs it: exit statuses, error messages, output
+// files. Job files are written here, in a scratch folder; the numbers in them
+// are invented for these tests.
+#include <catch2/catch.hpp>
+
+#include <sys/wait.h>
+
+#include <algorithm>
+#include <cstdlib>
+#include <filesystem>
+#include <string>
+
+#include <nlohmann/json.hpp>
+
+#include "scratch_folder.hpp"
+
+namespace {
+
+struct RunResult {
+    int status = -1;
+    std::string out;
+    std::string err;
+};
+
+std::string quoted(const std::string& s) {
+    std::string q = "'";
+    for (char c : s) {
+        if (c == '\'') q += "'\\''";
+        else q += c;
+    }
+    return q + "'";
+}
+
+// Run plumb with the arguments (already quoted where needed), capturing both streams.
+RunResult run_plumb(const std::string& arguments) {
+    plumb_test::ScratchFolder capture;
+    const std::string out = capture.file("stdout");
+    const std::string err = capture.file("stderr");
+    const std::string command = quoted(PLUMB_EXECUTABLE) + " " + arguments + " >" + quoted(out) +
+                                " 2>" + quoted(err) + " </dev/null";
+    const int raw = std::system(command.c_str());
+    RunResult r;
+    r.status = (raw != -1 && WIFEXITED(raw)) ? WEXITSTATUS(raw) : -1;
+    r.out = plumb_test::read_text(out);
+    r.err = plumb_test::read_text(err);
+    return r;
+}
+
+bool contains(const std::string& haystack, const std::string& needle) {
+    return haystack.find(needle) != std::string::npos;
+}
+
+std::size_t occurrences(const std::string& haystack, const std::string& needle) {
+    std::size_t n = 0;
+    for (std::size_t at = haystack.find(needle); at != std::string::npos;
+         at = haystack.find(needle, at + 1)) {
+        ++n;
+    }
+    return n;
+}
+
+// A short gentle trolley move of a 3 t load; invented numbers.
+const char* const gentle_job = R"(job:
+  title: CLI test lift
+  reference: CLI-1
+motion:
+  moves:
+    - distance: 5 m
+      top_speed: 0.5 m/s
+      acceleration: 0.3 m/s^2
+hoist:
+  rope_length: 10 m
+  rated_load: 10 t
+hook_block:
+  mass: 200 kg
+rigging:
+  length: 2 m
+load:
+  mass: 3 t
+)";
+
+std::string write_job(const plumb_test::ScratchFolder& folder, const std::string& name,
+                      const std::string& text) {
+    const std::string path = folder.file(name);
+    plumb_test::write_text(path, text);
+    return path;
+}
+
+}  // namespace
+
+TEST_CASE("--help exits 0 for the program and for each subcommand", "[cli]") {
+    const RunResult top = run_plumb("--help");
+    CHECK(top.status == 0);
+    CHECK(contains(top.out, "check"));
+    CHECK(contains(top.out, "modes"));
+    CHECK(top.err.empty());
+
+    const RunResult check = run_plumb("check --help");
+    CHECK(check.status == 0);
+    CHECK(contains(check.out, "--json"));
+    CHECK(contains(check.out, "--csv"));
+    CHECK(contains(check.out, "--units"));
+    CHECK(contains(check.out, "JOB"));
+
+    const RunResult modes = run_plumb("modes --help");
+    CHECK(modes.status == 0);
+    CHECK(contains(modes.out, "--units"));
+    CHECK_FALSE(contains(modes.out, "--json"));
+}
+
+TEST_CASE("--version exits 0 and names the program", "[cli]") {
+    const RunResult r = run_plumb("--version");
+    CHECK(r.status == 0);
+    CHECK(r.out.rfind("plumb ", 0) == 0);
+}
+
+TEST_CASE("command-line mistakes exit 2 with one error line", "[cli]") {
+    plumb_test::ScratchFolder folder;
+    const std::string job = quoted(write_job(folder, "job.yaml", gentle_job));
+    for (const std::string& arguments :
+         {std::string(""), std::string("launch ") + job, "check " + job + " --bogus",
+          "check " + job + " --units metric", std::string("check"), "modes " + job + " --json x.json",
+          "check " + job + " --json " + quoted(folder.file("same")) + " --csv " +
+              quoted(folder.file("same"))}) {
+        INFO("arguments: " << arguments);
+        const RunResult r = run_plumb(arguments);
+        CHECK(r.status == 2);
+        CHECK(r.err.rfind("plumb: error: ", 0) == 0);
+        CHECK(occurrences(r.err, "plumb: error:") == 1);
+    }
+    CHECK(folder.listing() == "job.yaml\n");
+}
+
+TEST_CASE("a missing job file exits 2 and names the file", "[cli]") {
+    plumb_test::ScratchFolder folder;
+    const std::string missing = folder.file("no-such-job.yaml");
+    for (const char* command : {"check ", "modes "}) {
+        const RunResult r = run_plumb(command + quoted(missing));
+        CHECK(r.status == 2);
+        CHECK(r.err.rfind("plumb: error: ", 0) == 0);
+        CHECK(contains(r.err, "no-such-job.yaml"));
+        CHECK(r.out.empty());
+    }
+}
+
+TEST_CASE("a malformed job file exits 2 and names the file", "[cli]") {
+    plumb_test::ScratchFolder folder;
+    const std::string job = write_job(folder, "broken.yaml", "job: {title: x}\nmotion: [unclosed\n");
+    const RunResult r = run_plumb("check " + quoted(job));
+    CHECK(r.status == 2);
+    CHECK(r.err.rfind("plumb: error: ", 0) == 0);
+    CHECK(contains(r.err, "broken.yaml"));
+}
+
+TEST_CASE("plumb check of a gentle lift prints the summary with cautions and exits 0", "[cli]") {
+    plumb_test::ScratchFolder folder;
+    const std::string job = write_job(folder, "job.yaml", gentle_job);
+    const RunResult r = run_plumb("check " + quoted(job));
+    INFO(r.err);
+    CHECK(r.status == 0);
+    CHECK(r.err.empty());
+    CHECK(contains(r.out, "CLI test lift"));
+    CHECK(contains(r.out, "OVERALL VERDICT: PASS"));
+    CHECK(contains(r.out, "Cautions"));
+    CHECK(contains(r.out, "planning aid"));
+    CHECK(contains(r.out, "Model assumptions"));
+
+    const RunResult us = run_plumb("check " + quoted(job) + " --units us");
+    CHECK(us.status == 0);
+    CHECK(contains(us.out, "32.8084 ft"));  // the 10 m hoist rope
+}
+
+TEST_CASE("--json and --csv write complete, parseable files", "[cli]") {
+    plumb_test::ScratchFolder folder;
+    const std::string job = write_job(folder, "job.yaml", gentle_job);
+    const std::string json_path = folder.file("result.json");
+    const std::string csv_path = folder.file("trace.csv");
+    const RunResult r = run_plumb("check " + quoted(job) + " --json " + quoted(json_path) +
+                                  " --csv " + quoted(csv_path));
+    INFO(r.err);
+    REQUIRE(r.status == 0);
+    const nlohmann::json doc = nlohmann::json::parse(plumb_test::read_text(json_path));
+    CHECK(doc["unit_system"] == "si");
+    CHECK(doc["job"]["title"] == "CLI test lift");
+    CHECK(doc["checks"].is_array());
+    CHECK(doc["overall_verdict"] == "PASS");
+    CHECK_FALSE(doc["cautions"].empty());
+    CHECK_FALSE(doc["assumptions"].empty());
+
+    const std::string csv = plumb_test::read_text(csv_path);
+    CHECK(csv.rfind("time [s],", 0) == 0);
+    // The trace covers the move and the free swing after it: many rows.
+    CHECK(std::count(csv.begin(), csv.end(), '\n') > 10);
+    CHECK(doc["statistics"]["trace_rows"].get<long>() + 1 == std::count(csv.begin(), csv.end(), '\n'));
+    CHECK(folder.listing() == "job.yaml\nresult.json\ntrace.csv\n");
+}
+
+TEST_CASE("an output path that cannot be written exits 2 and leaves no file", "[cli]") {
+    plumb_test::ScratchFolder folder;
+    const std::string job = write_job(folder, "job.yaml", gentle_job);
+    const std::string good = folder.file("result.json");
+    const std::string bad = folder.file("missing-folder/trace.csv");
+    const RunResult r = run_plumb("check " + quoted(job) + " --json " + quoted(good) + " --csv " +
+                                  quoted(bad));
+    CHECK(r.status == 2);
+    CHECK(r.err.rfind("plumb: error: ", 0) == 0);
+    CHECK(contains(r.err, "missing-folder/trace.csv"));
+    CHECK_FALSE(std::filesystem::exists(good));
+    CHECK(folder.listing() == "job.yaml\n");
+}
+
+TEST_CASE("a lift that exceeds its limit exits 1 and says FAIL", "[cli]") {
+    plumb_test::ScratchFolder folder;
+    const std::string job =
+        write_job(folder, "tight.yaml", std::string(gentle_job) + "limits:\n  load_offset: 1 mm\n");
+    const std::string json_path = folder.file("tight.json");
+    const RunResult r = run_plumb("check " + quoted(job) + " --json " + quoted(json_path));
+    INFO(r.err);
+    CHECK(r.status == 1);
+    CHECK(contains(r.out, "OVERALL VERDICT: FAIL"));
+    CHECK(contains(r.out, "planning aid"));  // the cautions are printed on failure too
+    // The results of a failing lift are still written: the planner needs them.
+    const nlohmann::json doc = nlohmann::json::parse(plumb_test::read_text(json_path));
+    CHECK(doc["overall_verdict"] == "FAIL");
+}
+
+TEST_CASE("plumb modes prints the two swing modes and exits 0", "[cli]") {
+    plumb_test::ScratchFolder folder;
+    const std::string job = write_job(folder, "job.yaml", gentle_job);
+    const RunResult r = run_plumb("modes " + quoted(job));
+    INFO(r.err);
+    CHECK(r.status == 0);
+    CHECK(contains(r.out, "Swing modes"));
+    CHECK(contains(r.out, "1 (slow)"));
+    CHECK(contains(r.out, "2 (fast)"));
+    CHECK(contains(r.out, "Hz"));
+    CHECK(contains(r.out, "planning aid"));
+}
