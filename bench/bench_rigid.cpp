@@ -1,1 +1,195 @@
-int main(){}
+// Benchmark of the rigid model: time per simulation of a 60 s lift, and the
+// largest relative error of its peaks against a tight-tolerance reference.
+// Baselines are measured in the same run: Boost.Odeint's dopri5 with dense
+// output (driving the same peak finder) and SUNDIALS CVODE.
+//
+//   build/bench/plumb_bench [path/to/plumb cases/demo.yaml]
+//
+// Not run by ctest: timings belong to a benchmark, never to a test.
+#include <algorithm>
+#include <array>
+#include <boost/numeric/odeint.hpp>
+#include <chrono>
+#include <cmath>
+#include <cstdio>
+#include <cstdlib>
+#include <string>
+#include <vector>
+
+#include "plumb/errors.hpp"
+#include "plumb/simulation.hpp"
+
+using namespace plumb;
+namespace odeint = boost::numeric::odeint;
+
+namespace {
+
+// An invented lift: 8 t load on 3 m of rigging under 12 m of hoist rope; two
+// moves out and back (accelerate, coast, stop), then free swing to t = 60 s.
+RigidPendulumModel benchmark_case() {
+    const RigidPendulumParameters p{500, 8000, 12, 3, 0, 9.80665};
+    const std::vector<Move> moves = {{10, 1.0, 0.4, 0.4, std::nullopt, 0}, {-10, 1.0, 0.4, 0.4, std::nullopt, 5}};
+    return RigidPendulumModel(p, SupportMotion::from_moves(moves));
+}
+
+std::vector<double> peaks_of(const SimulationResult& r) {
+    return {r.hook_rope_angle.value,    r.load_angle.value,         r.load_offset.value,
+            r.residual_load_offset.value, r.residual_hook_rope_angle.value, r.residual_load_angle.value,
+            r.hoist_rope_tension.value, r.rigging_tension.value,    r.least_hoist_rope_tension.value,
+            r.least_rigging_tension.value};
+}
+
+double largest_relative_error(const SimulationResult& r, const std::vector<double>& reference) {
+    const std::vector<double> p = peaks_of(r);
+    double worst = 0;
+    for (std::size_t i = 0; i < p.size(); ++i) worst = std::max(worst, std::fabs(p[i] / reference[i] - 1));
+    return worst;
+}
+
+// Baseline: what a C++ engineer would write with Boost.Odeint's dopri5 and its
+// dense output, restarted at each break like plumb's own integrator.
+using State = std::array<double, 4>;
+class Dopri5Step final : public DenseStep {
+public:
+    using Stepper = odeint::dense_output_runge_kutta<odeint::controlled_runge_kutta<odeint::runge_kutta_dopri5<State>>>;
+    explicit Dopri5Step(Stepper& s) : stepper(s) {}
+    void state_at(double t, std::span<double> x) const override {
+        State y;
+        stepper.calc_state(t, y);
+        std::copy(y.begin(), y.end(), x.begin());
+    }
+    Stepper& stepper;
+};
+
+IntegrationStats integrate_dopri5(const SecondOrderSystem& system, std::span<const double> x0,
+                                  std::span<const double> breaks, const IntegratorSettings& settings,
+                                  StepSink& sink) {
+    auto stepper = odeint::make_dense_output(settings.absolute_tolerance, settings.relative_tolerance,
+                                             odeint::runge_kutta_dopri5<State>());
+    IntegrationStats stats;
+    std::size_t interval = 0;
+    auto rhs = [&](const State& x, State& dxdt, double t) {
+        ++stats.rhs_evaluations;
+        system.derivatives(t, interval, x, dxdt);
+    };
+    State x;
+    std::copy(x0.begin(), x0.end(), x.begin());
+    Dopri5Step step(stepper);
+    double dt = 0.01;
+    for (interval = 0; interval + 1 < breaks.size(); ++interval) {
+        const double t_stop = breaks[interval + 1];
+        stepper.initialize(x, breaks[interval], std::min(dt, t_stop - breaks[interval]));
+        while (stepper.current_time() < t_stop) {
+            const double left = t_stop - stepper.current_time();
+            if (stepper.current_time_step() > left) stepper.initialize(stepper.current_state(), stepper.current_time(), left);
+            const auto [t0, t1] = stepper.do_step(rhs);
+            ++stats.steps;
+            step.t_begin = t0;
+            step.t_end = std::min(t1, t_stop);
+            step.interval = interval;
+            sink.on_step(step);
+            if (t_stop - t1 < 1e-12 * std::max(1.0, t_stop)) break;
+        }
+        x = stepper.current_state();
+        dt = stepper.current_time_step();
+        ++stats.restarts;
+    }
+    return stats;
+}
+
+struct Measurement {
+    double median_ms = 0;
+    double error = 0;
+    long rhs = 0;
+};
+
+Measurement measure(const RigidPendulumModel& model, SimulationRequest request, const IntegrateFunction& integrator,
+                    const std::vector<double>& reference, int repeats) {
+    std::vector<double> ms;
+    SimulationResult r;
+    for (int i = 0; i < repeats; ++i) {
+        const auto start = std::chrono::steady_clock::now();
+        r = simulate(model, request, integrator);
+        ms.push_back(std::chrono::duration<double, std::milli>(std::chrono::steady_clock::now() - start).count());
+    }
+    std::nth_element(ms.begin(), ms.begin() + ms.size() / 2, ms.end());
+    return {ms[ms.size() / 2], largest_relative_error(r, reference), r.stats.rhs_evaluations};
+}
+
+SimulationRequest request_with(IntegratorMethod method, double rtol, double atol) {
+    SimulationRequest r;
+    r.end_time = 60;
+    r.integrator.method = method;
+    r.integrator.relative_tolerance = rtol;
+    r.integrator.absolute_tolerance = atol;
+    return r;
+}
+
+double median_process_ms(const std::string& command, int repeats) {
+    std::vector<double> ms;
+    for (int i = 0; i < repeats; ++i) {
+        const auto start = std::chrono::steady_clock::now();
+        if (std::system(command.c_str()) == -1) return NAN;
+        ms.push_back(std::chrono::duration<double, std::milli>(std::chrono::steady_clock::now() - start).count());
+    }
+    std::nth_element(ms.begin(), ms.begin() + ms.size() / 2, ms.end());
+    return ms[ms.size() / 2];
+}
+
+}  // namespace
+
+int main(int argc, char** argv) {
+    const RigidPendulumModel model = benchmark_case();
+    const AnalysisSettings defaults;  // plumb's default tolerances
+    const SimulationResult reference_run =
+        simulate(model, request_with(IntegratorMethod::runge_kutta, 1e-13, 1e-15));
+    const std::vector<double> reference = peaks_of(reference_run);
+    const int repeats = 201;
+
+    std::printf("60 s lift, rigid two-link model; median of %d simulations each; error = largest relative\n"
+                "peak error (angles, offset, residual swing, tensions) against RKF78 at rtol 1e-13.\n\n",
+                repeats);
+    const Measurement plumb_default =
+        measure(model, request_with(IntegratorMethod::runge_kutta, defaults.relative_tolerance, defaults.absolute_tolerance),
+                integrate, reference, repeats);
+    std::printf("%-34s %10s %12s %10s\n", "integrator", "ms/sim", "peak error", "rhs evals");
+    std::printf("%-34s %10.3f %12.2e %10ld\n", "plumb RKF78 + Hermite (default)", plumb_default.median_ms,
+                plumb_default.error, plumb_default.rhs);
+
+    // dopri5: the loosest tolerance that is at least as accurate as plumb's default.
+    Measurement dopri{};
+    double dopri_tol = 0;
+    for (double tol = 1e-6; tol >= 1e-13; tol /= std::sqrt(10.0)) {
+        const Measurement m = measure(model, request_with(IntegratorMethod::runge_kutta, tol, tol * 1e-2),
+                                      integrate_dopri5, reference, 21);
+        char label[64];
+        std::snprintf(label, sizeof label, "  dopri5 dense, rtol %.1e", tol);
+        std::printf("%-34s %10.3f %12.2e %10ld\n", label, m.median_ms, m.error, m.rhs);
+        if (m.error <= plumb_default.error) {
+            dopri_tol = tol;
+            dopri = measure(model, request_with(IntegratorMethod::runge_kutta, tol, tol * 1e-2), integrate_dopri5,
+                            reference, repeats);
+            break;
+        }
+    }
+    for (IntegratorMethod method : {IntegratorMethod::cvode_adams, IntegratorMethod::cvode_bdf}) {
+        const Measurement m = measure(model, request_with(method, 1e-10, 1e-12), integrate, reference, 11);
+        std::printf("%-34s %10.3f %12.2e %10ld\n",
+                    method == IntegratorMethod::cvode_adams ? "CVODE Adams, rtol 1e-10" : "CVODE BDF, rtol 1e-10",
+                    m.median_ms, m.error, m.rhs);
+    }
+    if (dopri_tol > 0) {
+        std::printf("\ndopri5 at equal accuracy (rtol %.2g): %.3f ms/sim; plumb default: %.3f ms/sim\n", dopri_tol,
+                    dopri.median_ms, plumb_default.median_ms);
+        std::printf("ratio plumb / dopri5 = %.2f (target <= 0.5)\n", plumb_default.median_ms / dopri.median_ms);
+    }
+    std::printf("plumb default peak error %.2e (target <= 1e-6)\n", plumb_default.error);
+
+    if (argc == 3) {
+        const std::string command = std::string(argv[1]) + " check " + argv[2] + " > /dev/null";
+        const double shell = median_process_ms("true", 21);
+        std::printf("\nwhole process `plumb check %s`: %.1f ms median of 21 (a shell running `true`: %.1f ms)\n",
+                    argv[2], median_process_ms(command, 21), shell);
+    }
+    return 0;
+}

@@ -184,12 +184,17 @@ std::vector<double> integration_breaks(const SupportMotion& motion, double end_t
 }  // namespace
 
 SimulationResult simulate(const SwingModel& model, const SimulationRequest& request) {
+    return simulate(model, request, integrate);
+}
+
+SimulationResult simulate(const SwingModel& model, const SimulationRequest& request,
+                          const IntegrateFunction& integrator) {
     SimulationResult result;
     result.residual_from = std::min(model.motion().end_of_motion(), request.end_time);
     Recorder recorder(model, request, result.residual_from, result);
     const std::vector<double> breaks = integration_breaks(model.motion(), request.end_time);
     const std::vector<double> x0 = model.initial_state();
-    result.stats = integrate(model, x0, breaks, request.integrator, recorder);
+    result.stats = integrator(model, x0, breaks, request.integrator, recorder);
     return result;
 }
 

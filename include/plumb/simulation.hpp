@@ -4,6 +4,7 @@
 // optionally a time series on a fixed output grid.
 #pragma once
 
+#include <functional>
 #include <optional>
 #include <vector>
 
@@ -55,5 +56,13 @@ struct SimulationResult {
 };
 
 SimulationResult simulate(const SwingModel& model, const SimulationRequest& request);
+
+// The same with another integrator behind the same interface as integrate()
+// (the benchmark plugs in its baselines here).
+using IntegrateFunction = std::function<IntegrationStats(const SecondOrderSystem&, std::span<const double>,
+                                                         std::span<const double>, const IntegratorSettings&,
+                                                         StepSink&)>;
+SimulationResult simulate(const SwingModel& model, const SimulationRequest& request,
+                          const IntegrateFunction& integrator);
 
 }  // namespace plumb
