@@ -414,7 +414,7 @@ std::string input_digest(const LiftAssessment& a, UnitSystem u) {
     motion += "; total travel " + qty(m.total_travel, Dimension::length, u) + ", end position " +
               qty(m.net_travel, Dimension::length, u) + "; peak speed " +
               qty(m.peak_speed, Dimension::speed, u) + "; peak acceleration " +
-              qty(m.peak_acceleration, Dimension::acceleration, u) + "; last move ends at t = " +
+              qty(m.peak_acceleration, Dimension::acceleration, u) + "; support at rest for good from t = " +
               seconds(a.prediction.end_of_motion);
     out += field("Motion", motion);
 
@@ -544,7 +544,9 @@ std::string checks_section(const LiftAssessment& a, UnitSystem u) {
     }
     const std::vector<std::string> missing = limits_not_given(a.job.limits);
     if (!missing.empty()) {
-        out += wrap("Not checked (no limit in the job): " + join(missing, ", ") + ".", "  ", "  ");
+        out += wrap("No limit given in the job for: " + join(missing, ", ") +
+                        " (any default a check above applies instead is stated in its note).",
+                    "  ", "  ");
     }
     out += "\n";
     out += wrap(std::string("Overall verdict: ") + verdict_word(a.overall) + " - " + verdict_explanation(a),

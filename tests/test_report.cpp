@@ -295,6 +295,26 @@ TEST_CASE("SI units: tensions in kN, masses in t", "[report]") {
     CHECK(doc["job"]["hoist"]["rated_load"]["value"].get<double>() == Approx(98.0665));
 }
 
+TEST_CASE("a speed history is digested: travel both ways, end position, peaks", "[report]") {
+    plumb::LiftAssessment a = synthetic_assessment();
+    a.job.motion.moves.clear();
+    // Forward at up to 0.4 m/s, then 0.2 m/s backwards: 2.4 m forward, 0.2 m back.
+    a.job.motion.speed_history = {{0, 0}, {2, 0.4}, {6, 0.4}, {8, 0}, {9, -0.2}, {10, 0}};
+    a.job.motion.speed_history_file = "synthetic-drive.csv";
+    const json doc = json::parse(plumb::format_json(a, UnitSystem::si));
+    const json& m = doc["job"]["motion"];
+    CHECK(m["kind"] == "speed_history");
+    CHECK(m["speed_history_rows"] == 6);
+    CHECK(m["speed_history_file"] == "synthetic-drive.csv");
+    CHECK(m["total_travel"]["value"].get<double>() == Approx(2.6));
+    CHECK(m["end_position"]["value"].get<double>() == Approx(2.2));
+    CHECK(m["peak_speed"]["value"].get<double>() == Approx(0.4));
+    CHECK(m["peak_acceleration"]["value"].get<double>() == Approx(0.2));
+    const std::string flat = squeeze(plumb::format_summary(a, UnitSystem::si));
+    CHECK(contains(flat, "speed history of 6 rows from synthetic-drive.csv"));
+    CHECK(contains(flat, "total travel 2.6 m"));
+}
+
 TEST_CASE("the JSON document holds every check, the verdict, cautions and assumptions",
           "[report]") {
     const plumb::LiftAssessment a = synthetic_assessment();
