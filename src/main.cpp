@@ -2,9 +2,11 @@
 // Every failure is caught once, here, and becomes one "plumb: error:" line on
 // stderr and the exit status of errors.hpp.
 #include <exception>
+#include <filesystem>
 #include <iostream>
 #include <map>
 #include <string>
+#include <system_error>
 #include <utility>
 #include <vector>
 
@@ -45,10 +47,33 @@ void add_job_argument(CLI::App& command, Options& options) {
         ->check(CLI::ExistingFile);
 }
 
-int run_check(const Options& options) {
-    if (!options.json_path.empty() && options.json_path == options.csv_path) {
+// Two names of one file, as far as the file system can tell before writing.
+bool same_file(const std::string& a, const std::string& b) {
+    std::error_code ea, eb;
+    const std::filesystem::path pa = std::filesystem::weakly_canonical(a, ea);
+    const std::filesystem::path pb = std::filesystem::weakly_canonical(b, eb);
+    if (ea || eb) return a == b;
+    return pa == pb;
+}
+
+// An output file must not overwrite the job file or the other output.
+void check_output_paths(const Options& options) {
+    const std::pair<const char*, const std::string*> outputs[] = {{"--json", &options.json_path},
+                                                                  {"--csv", &options.csv_path}};
+    for (const auto& [option, path] : outputs) {
+        if (!path->empty() && same_file(*path, options.job_path)) {
+            throw plumb::UsageError(std::string(option) + " names the job file '" + *path +
+                                    "': it would be overwritten");
+        }
+    }
+    if (!options.json_path.empty() && !options.csv_path.empty() &&
+        same_file(options.json_path, options.csv_path)) {
         throw plumb::UsageError("--json and --csv name the same file '" + options.json_path + "'");
     }
+}
+
+int run_check(const Options& options) {
+    check_output_paths(options);
     const plumb::Job job = plumb::load_job_file(options.job_path);
     const plumb::LiftAssessment assessment = plumb::assess_lift(job, !options.csv_path.empty());
 

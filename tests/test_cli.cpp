@@ -121,7 +121,8 @@ TEST_CASE("command-line mistakes exit 2 with one error line", "[cli]") {
          {std::string(""), std::string("launch ") + job, "check " + job + " --bogus",
           "check " + job + " --units metric", std::string("check"), "modes " + job + " --json x.json",
           "check " + job + " --json " + quoted(folder.file("same")) + " --csv " +
-              quoted(folder.file("same"))}) {
+              quoted(folder.file("same")),
+          "check " + job + " --json " + job, "check " + job + " --csv " + quoted(folder.file("./job.yaml"))}) {
         INFO("arguments: " << arguments);
         const RunResult r = run_plumb(arguments);
         CHECK(r.status == 2);
@@ -129,6 +130,7 @@ TEST_CASE("command-line mistakes exit 2 with one error line", "[cli]") {
         CHECK(occurrences(r.err, "plumb: error:") == 1);
     }
     CHECK(folder.listing() == "job.yaml\n");
+    CHECK(plumb_test::read_text(folder.file("job.yaml")) == gentle_job);  // never overwritten
 }
 
 TEST_CASE("a missing job file exits 2 and names the file", "[cli]") {
