@@ -271,21 +271,34 @@ std::optional<double> model_valid_until(const LiftPrediction& p) {
     return t;
 }
 
+std::string slack_statement(const char* what, double t) {
+    return std::string("The ") + what + " goes slack (tension reaches zero) at t = " + seconds(t) +
+           ": the rigid model is not valid past t = " + seconds(t) +
+           ". Values after that time are not predictions; the lift as planned must be changed.";
+}
+
 std::vector<std::string> slack_statements(const LiftPrediction& p) {
     std::vector<std::string> out;
-    if (p.hoist_rope_slack_time) {
-        out.push_back("The hoist rope goes slack (tension reaches zero) at t = " +
-                      seconds(*p.hoist_rope_slack_time) +
-                      ": the rigid model is not valid past t = " + seconds(*p.hoist_rope_slack_time) +
-                      ". Values after that time are not predictions; the motion must be changed.");
-    }
-    if (p.rigging_slack_time) {
-        out.push_back("The rigging goes slack (tension reaches zero) at t = " +
-                      seconds(*p.rigging_slack_time) +
-                      ": the rigid model is not valid past t = " + seconds(*p.rigging_slack_time) +
-                      ". Values after that time are not predictions; the motion must be changed.");
-    }
+    if (p.hoist_rope_slack_time) out.push_back(slack_statement("hoist rope", *p.hoist_rope_slack_time));
+    if (p.rigging_slack_time) out.push_back(slack_statement("rigging", *p.rigging_slack_time));
     return out;
+}
+
+// A time in the tables, marked when it lies past the validity of the model.
+constexpr const char* past_validity_mark = " (!)";
+
+std::string when(double t, const LiftPrediction& p) {
+    const std::optional<double> valid_until = model_valid_until(p);
+    return seconds(t) + (valid_until && t > *valid_until ? past_validity_mark : "");
+}
+
+std::string past_validity_note(const LiftPrediction& p) {
+    const std::optional<double> valid_until = model_valid_until(p);
+    if (!valid_until) return "";
+    return wrap(std::string(past_validity_mark).substr(1) + " marks a time after t = " +
+                    seconds(*valid_until) +
+                    ", past which the rigid model is not valid: the value there is not a prediction.",
+                "  ", "  ");
 }
 
 std::string verdict_explanation(const LiftAssessment& a) {
@@ -456,7 +469,7 @@ std::string peaks_section(const LiftAssessment& a, UnitSystem u) {
     const int parts = std::max(1, a.job.hoist.parts_of_line);
     TextTable t({"quantity", "peak", "at t", "static", "least"}, "lrrrr");
     auto add = [&](const char* name, const Peak& peak, Dimension d, std::string stat, std::string least) {
-        t.add({name, qty(peak.value, d, u), seconds(peak.time), std::move(stat), std::move(least)});
+        t.add({name, qty(peak.value, d, u), when(peak.time, p), std::move(stat), std::move(least)});
     };
     add("hook rope angle from vertical", s.hook_rope_angle, Dimension::angle, "", "");
     add("load angle from vertical", s.load_angle, Dimension::angle, "", "");
@@ -464,13 +477,13 @@ std::string peaks_section(const LiftAssessment& a, UnitSystem u) {
     add("hoist rope tension, total", s.hoist_rope_tension, Dimension::force,
         qty(p.static_hoist_rope_tension, Dimension::force, u),
         qty(s.least_hoist_rope_tension.value, Dimension::force, u) + " at " +
-            seconds(s.least_hoist_rope_tension.time));
+            when(s.least_hoist_rope_tension.time, p));
     add("line pull, per part of line", Peak{p.peak_line_pull, s.hoist_rope_tension.time},
         Dimension::force, qty(p.static_hoist_rope_tension / parts, Dimension::force, u), "");
     add("rigging tension", s.rigging_tension, Dimension::force,
         qty(p.static_rigging_tension, Dimension::force, u),
         qty(s.least_rigging_tension.value, Dimension::force, u) + " at " +
-            seconds(s.least_rigging_tension.time));
+            when(s.least_rigging_tension.time, p));
     add("sling leg tension", Peak{p.peak_sling_leg_tension, s.rigging_tension.time}, Dimension::force,
         qty(p.static_sling_leg_tension, Dimension::force, u), "");
     add("dynamic factor, hoist rope", Peak{p.dynamic_factor, s.hoist_rope_tension.time},
@@ -483,6 +496,7 @@ std::string peaks_section(const LiftAssessment& a, UnitSystem u) {
                 "at rest. Line pull = total / " + std::to_string(parts) +
                 " parts of line. Sling leg tension = rigging tension x " + num(p.sling_leg_factor) +
                 " (leg rule).", "  ", "  ");
+    out += past_validity_note(p);
     return out;
 }
 
@@ -499,11 +513,11 @@ std::string residual_section(const LiftAssessment& a, UnitSystem u) {
     out += field("Measured over", "t = " + num(s.residual_from) + " s to " + seconds(p.end_time) +
                                       " (" + seconds(window) + ")");
     out += field("Load offset amplitude", qty(s.residual_load_offset.value, Dimension::length, u) +
-                                              " at t = " + seconds(s.residual_load_offset.time));
+                                              " at t = " + when(s.residual_load_offset.time, p));
     out += field("Hook rope angle", qty(s.residual_hook_rope_angle.value, Dimension::angle, u) +
-                                        " at t = " + seconds(s.residual_hook_rope_angle.time));
+                                        " at t = " + when(s.residual_hook_rope_angle.time, p));
     out += field("Load angle", qty(s.residual_load_angle.value, Dimension::angle, u) + " at t = " +
-                                   seconds(s.residual_load_angle.time));
+                                   when(s.residual_load_angle.time, p));
     if (window < p.modes.first.period) {
         out += wrap("Note: the window is shorter than one period of the slow swing mode (" +
                         seconds(p.modes.first.period) + "), so the amplitude may be understated.",
@@ -511,6 +525,7 @@ std::string residual_section(const LiftAssessment& a, UnitSystem u) {
     }
     out += wrap("No damping is modelled: in the model this swing continues until the next move.",
                 "  ", "  ");
+    out += past_validity_note(p);
     return out;
 }
 
@@ -528,10 +543,11 @@ std::string checks_section(const LiftAssessment& a, UnitSystem u) {
             if (c.verdict == Verdict::fail) word += " !!!";
             if (c.verdict == Verdict::caution) word += " ***";
             t.add({c.name, value_text(c, c.value, u), value_text(c, c.limit, u), percent(c.margin),
-                   seconds(c.value_time), c.first_exceedance ? "t = " + seconds(*c.first_exceedance) : "never",
+                   when(c.value_time, a.prediction), c.first_exceedance ? "t = " + seconds(*c.first_exceedance) : "never",
                    word});
         }
         out += t.render();
+        out += past_validity_note(a.prediction);
         out += "\n";
         for (const CheckResult& c : a.checks) {
             std::string text = c.name + ": " + c.description;

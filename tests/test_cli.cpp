@@ -238,3 +238,24 @@ TEST_CASE("plumb modes prints the two swing modes and exits 0", "[cli]") {
     CHECK(contains(r.out, "Hz"));
     CHECK(contains(r.out, "planning aid"));
 }
+
+TEST_CASE("a rope that goes slack fails the lift and bounds the model's validity", "[cli]") {
+    // Released at rest 89 deg from vertical, ahead of a trolley that starts to
+    // accelerate at 0.3 m/s^2: along the rope g cos 89 deg = 0.17 m/s^2 is less
+    // than a sin 89 deg = 0.30 m/s^2 pulling the other way, so the rope cannot
+    // stay taut even at the first instant.
+    plumb_test::ScratchFolder folder;
+    std::string text = gentle_job;
+    text += "  initial_angle: 89 deg\n";  // under load:, the last section of gentle_job
+    const std::string job = write_job(folder, "slack.yaml", text);
+    const std::string json_path = folder.file("slack.json");
+    const RunResult r = run_plumb("check " + quoted(job) + " --json " + quoted(json_path));
+    INFO(r.err);
+    CHECK(r.status == 1);
+    CHECK(contains(r.out, "SLACK"));
+    CHECK(contains(r.out, "rigid model is not valid past t ="));
+    const nlohmann::json doc = nlohmann::json::parse(plumb_test::read_text(json_path));
+    REQUIRE(doc["model_valid_until"].is_number());
+    CHECK(doc["model_valid_until"].get<double>() < 0.5);
+    CHECK(doc["overall_verdict"] == "FAIL");
+}

@@ -240,6 +240,10 @@ TEST_CASE("a slack rope is stated with the time past which the model is not vali
         CHECK(contains(flat, "hoist rope goes slack"));
         CHECK(contains(flat, "the rigid model is not valid past t = 4.25 s"));
         CHECK(contains(flat, "the rigid model is not valid past t = 3.5 s"));
+        // Peak times after the first slack are marked as not predictions.
+        CHECK(contains(flat, "32 kN 2 s ")); // hoist rope peak at 2 s: before, not marked
+        CHECK(contains(flat, "0.125 m at t = 13 s (!)"));
+        CHECK(contains(flat, "(!) marks a time after t = 3.5 s"));
         const json doc = json::parse(plumb::format_json(a, UnitSystem::si));
         CHECK(doc["model_valid_until"].get<double>() == 3.5);
         CHECK(doc["hoist_rope_slack_time"].get<double>() == 4.25);
