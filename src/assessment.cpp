@@ -195,9 +195,18 @@ std::vector<CheckResult> run_checks(const Job& job, const LiftPrediction& p, con
                                      first(Quantity::rigging_tension, limit / p.sling_leg_factor)));
     }
     if (l.dynamic_factor) {
-        checks.push_back(limit_check(job, "dynamic_factor", "peak over static hoist rope tension", Dimension::ratio,
-                                     p.dynamic_factor, s.hoist_rope_tension.time, *l.dynamic_factor,
-                                     first(Quantity::hoist_rope_tension, *l.dynamic_factor * p.static_hoist_rope_tension)));
+        CheckResult c = limit_check(job, "dynamic_factor", "peak over static hoist rope tension", Dimension::ratio,
+                                    p.dynamic_factor, s.hoist_rope_tension.time, *l.dynamic_factor,
+                                    first(Quantity::hoist_rope_tension, *l.dynamic_factor * p.static_hoist_rope_tension));
+        // What a dynamic factor limit allows is the increment above 1: the
+        // margin and the caution band are shares of that increment.
+        if (*l.dynamic_factor > 1) {
+            const double used = (p.dynamic_factor - 1) / (*l.dynamic_factor - 1);
+            c.margin = 1 - used;
+            c.verdict = judge(used, 1.0, l.caution_fraction);
+            c.note = "margin and caution band apply to the increment above 1";
+        }
+        checks.push_back(std::move(c));
     }
     checks.push_back(taut_check("hoist_rope_taut", "least hoist rope tension (must stay above zero)",
                                 s.least_hoist_rope_tension, p.static_hoist_rope_tension, p.hoist_rope_slack_time));
