@@ -8,7 +8,6 @@
 #include "plumb/motion.hpp"
 
 using namespace plumb;
-using Catch::Approx;
 
 namespace {
 Move move(double distance, double top_speed, double acceleration, double deceleration,
