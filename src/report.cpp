@@ -409,6 +409,8 @@ std::string job_header(const Job& job, std::string_view title, UnitSystem units)
 
 std::string load_text(double newtons, UnitSystem u) {
     // A rated load is a force; planners also read it as a mass at standard gravity.
+    // In US units lbf and lb have the same number there, so the mass is not repeated.
+    if (u == UnitSystem::us_customary) return qty(newtons, Dimension::load, u);
     return qty(newtons, Dimension::load, u) + " (" +
            qty(newtons / standard_gravity, Dimension::mass, u) + " at standard gravity)";
 }
