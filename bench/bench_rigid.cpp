@@ -156,6 +156,14 @@ int main(int argc, char** argv) {
     std::printf("%-34s %10.3f %12.2e %10ld\n", "plumb RKF78 + Hermite (default)", plumb_default.median_ms,
                 plumb_default.error, plumb_default.rhs);
 
+    for (double tol : {1e-6, 1e-7, 1e-9}) {
+        const Measurement m =
+            measure(model, request_with(IntegratorMethod::runge_kutta, tol, tol * 1e-2), integrate, reference, 21);
+        char label[64];
+        std::snprintf(label, sizeof label, "  plumb RKF78, rtol %.0e", tol);
+        std::printf("%-34s %10.3f %12.2e %10ld\n", label, m.median_ms, m.error, m.rhs);
+    }
+
     // dopri5: the loosest tolerance that is at least as accurate as plumb's default.
     Measurement dopri{};
     double dopri_tol = 0;

@@ -17,76 +17,34 @@
 namespace plumb::detail {
 namespace {
 
-class SundialsContext {
+// Owns one SUNDIALS object: made by a SUNDIALS constructor (checked for null),
+// released by its destructor function, never copied.
+template <typename Handle, auto release>
+class Owned {
 public:
-    SundialsContext() {
-        if (SUNContext_Create(nullptr, &ctx_) != 0) throw NumericalError("SUNContext_Create failed", 0);
+    Owned(Handle handle, const char* made_by) : handle_(handle) {
+        if (!handle_) throw NumericalError(std::string(made_by) + " failed", 0);
     }
-    ~SundialsContext() { SUNContext_Free(&ctx_); }
-    SundialsContext(const SundialsContext&) = delete;
-    SundialsContext& operator=(const SundialsContext&) = delete;
-    SUNContext get() const { return ctx_; }
+    ~Owned() { release(handle_); }
+    Owned(const Owned&) = delete;
+    Owned& operator=(const Owned&) = delete;
+    Handle get() const { return handle_; }
 
 private:
-    SUNContext ctx_ = nullptr;
+    Handle handle_;
 };
 
-class SerialVector {
-public:
-    SerialVector(sunindextype length, SUNContext ctx) : v_(N_VNew_Serial(length, ctx)) {
-        if (!v_) throw NumericalError("N_VNew_Serial failed", 0);
-    }
-    ~SerialVector() { N_VDestroy(v_); }
-    SerialVector(const SerialVector&) = delete;
-    SerialVector& operator=(const SerialVector&) = delete;
-    N_Vector get() const { return v_; }
-    double* data() const { return N_VGetArrayPointer(v_); }
+using SundialsContext = Owned<SUNContext, [](SUNContext c) { SUNContext_Free(&c); }>;
+using SerialVector = Owned<N_Vector, N_VDestroy>;
+using DenseMatrix = Owned<SUNMatrix, SUNMatDestroy>;
+using DenseLinearSolver = Owned<SUNLinearSolver, [](SUNLinearSolver s) { SUNLinSolFree(s); }>;
+using CvodeMemory = Owned<void*, [](void* m) { CVodeFree(&m); }>;
 
-private:
-    N_Vector v_;
-};
-
-class DenseMatrix {
-public:
-    DenseMatrix(sunindextype n, SUNContext ctx) : a_(SUNDenseMatrix(n, n, ctx)) {
-        if (!a_) throw NumericalError("SUNDenseMatrix failed", 0);
-    }
-    ~DenseMatrix() { SUNMatDestroy(a_); }
-    DenseMatrix(const DenseMatrix&) = delete;
-    DenseMatrix& operator=(const DenseMatrix&) = delete;
-    SUNMatrix get() const { return a_; }
-
-private:
-    SUNMatrix a_;
-};
-
-class DenseLinearSolver {
-public:
-    DenseLinearSolver(N_Vector y, SUNMatrix a, SUNContext ctx) : ls_(SUNLinSol_Dense(y, a, ctx)) {
-        if (!ls_) throw NumericalError("SUNLinSol_Dense failed", 0);
-    }
-    ~DenseLinearSolver() { SUNLinSolFree(ls_); }
-    DenseLinearSolver(const DenseLinearSolver&) = delete;
-    DenseLinearSolver& operator=(const DenseLinearSolver&) = delete;
-    SUNLinearSolver get() const { return ls_; }
-
-private:
-    SUNLinearSolver ls_;
-};
-
-class CvodeMemory {
-public:
-    CvodeMemory(int multistep_method, SUNContext ctx) : mem_(CVodeCreate(multistep_method, ctx)) {
-        if (!mem_) throw NumericalError("CVodeCreate failed", 0);
-    }
-    ~CvodeMemory() { CVodeFree(&mem_); }
-    CvodeMemory(const CvodeMemory&) = delete;
-    CvodeMemory& operator=(const CvodeMemory&) = delete;
-    void* get() const { return mem_; }
-
-private:
-    void* mem_;
-};
+SUNContext new_context() {
+    SUNContext ctx = nullptr;
+    if (SUNContext_Create(nullptr, &ctx) != 0) return nullptr;
+    return ctx;
+}
 
 // What the C callbacks need: the system, the interval being integrated, the
 // last message CVODE reported (instead of letting it print to stderr).
@@ -150,20 +108,20 @@ IntegrationStats integrate_cvode(const SecondOrderSystem& system, std::span<cons
         }
     };
 
-    SundialsContext context;
-    SerialVector y(n, context.get());
-    SerialVector interpolated(n, context.get());
-    std::copy(x0.begin(), x0.end(), y.data());
+    const SundialsContext context(new_context(), "SUNContext_Create");
+    const SerialVector y(N_VNew_Serial(n, context.get()), "N_VNew_Serial");
+    const SerialVector interpolated(N_VNew_Serial(n, context.get()), "N_VNew_Serial");
+    std::copy(x0.begin(), x0.end(), N_VGetArrayPointer(y.get()));
     const int method = settings.method == IntegratorMethod::cvode_bdf ? CV_BDF : CV_ADAMS;
-    CvodeMemory cvode(method, context.get());
+    const CvodeMemory cvode(CVodeCreate(method, context.get()), "CVodeCreate");
     check(CVodeSetErrHandlerFn(cvode.get(), keep_error_message, &data), "CVodeSetErrHandlerFn");
     check(CVodeInit(cvode.get(), right_hand_side, t, y.get()), "CVodeInit");
     check(CVodeSStolerances(cvode.get(), settings.relative_tolerance, settings.absolute_tolerance),
           "CVodeSStolerances");
     check(CVodeSetUserData(cvode.get(), &data), "CVodeSetUserData");
-    DenseMatrix jacobian(n, context.get());
+    const DenseMatrix jacobian(SUNDenseMatrix(n, n, context.get()), "SUNDenseMatrix");
     // Adams with CVODE's default Newton iteration needs a linear solver too.
-    DenseLinearSolver solver(y.get(), jacobian.get(), context.get());
+    const DenseLinearSolver solver(SUNLinSol_Dense(y.get(), jacobian.get(), context.get()), "SUNLinSol_Dense");
     check(CVodeSetLinearSolver(cvode.get(), solver.get(), jacobian.get()), "CVodeSetLinearSolver");
 
     IntegrationStats stats;
