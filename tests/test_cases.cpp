@@ -56,3 +56,10 @@ TEST_CASE("the pump skid demo fails on sling leg tension only", "[cases]") {
         }
     }
 }
+
+TEST_CASE("the logged gantry travel demo is a CAUTION on residual swing", "[cases]") {
+    const LiftAssessment a = assess_case("gantry-drive-log.yaml");
+    CHECK(a.overall == Verdict::caution);
+    CHECK(verdict_of(a, "residual_swing") == Verdict::caution);
+    CHECK(a.job.motion.speed_history.size() > 2);
+}
