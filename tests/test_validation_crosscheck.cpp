@@ -227,9 +227,9 @@ TEST_CASE("the equations of motion agree with the Newton-Euler reference at arbi
             CHECK_THAT(dxdt[2], Catch::Matchers::WithinAbs(u[0], 1e-12 * (1 + std::abs(u[0]))));
             CHECK_THAT(dxdt[3], Catch::Matchers::WithinAbs(u[1], 1e-12 * (1 + std::abs(u[1]))));
             // through the public core function, in the argument order model.hpp declares:
-            // (support_acceleration, theta1, omega1, theta2, omega2, alpha1, alpha2)
+            // (support_acceleration, theta1, theta2, omega1, omega2, alpha1, alpha2)
             double alpha1 = 0, alpha2 = 0;
-            model.angular_accelerations(a, y[0], y[2], y[1], y[3], alpha1, alpha2);
+            model.angular_accelerations(a, y[0], y[1], y[2], y[3], alpha1, alpha2);
             CHECK_THAT(alpha1, Catch::Matchers::WithinAbs(u[0], 1e-12 * (1 + std::abs(u[0]))));
             CHECK_THAT(alpha2, Catch::Matchers::WithinAbs(u[1], 1e-12 * (1 + std::abs(u[1]))));
             // tensions
