@@ -107,7 +107,7 @@ std::vector<WatchLevel> watch_levels(const Job& job) {
         w.push_back({Quantity::hoist_rope_tension, rope_share(job) * *job.hoist.rope_wll * job.hoist.parts_of_line});
     }
     if (job.rigging.leg_wll) {
-        w.push_back({Quantity::rigging_tension, sling_share(job) * *job.rigging.leg_wll / sling_leg_factor(job)});
+        w.push_back({Quantity::rigging_resultant, sling_share(job) * *job.rigging.leg_wll / sling_leg_factor(job)});
     }
     if (l.dynamic_factor) {
         const double static_tension = (job.hook_block.mass + job.load.mass) * job.environment.gravity;
@@ -139,7 +139,9 @@ LiftPrediction predict_lift(const Job& job, const std::vector<WatchLevel>& watch
     p.peak_line_pull = p.simulation.hoist_rope_tension.value / job.hoist.parts_of_line;
     p.sling_leg_factor = sling_leg_factor(job);
     p.static_sling_leg_tension = p.static_rigging_tension * p.sling_leg_factor;
-    p.peak_sling_leg_tension = p.simulation.rigging_tension.value * p.sling_leg_factor;
+    // The legs share the whole force between hook and rigging (conservative for a
+    // load with a radius of gyration, whose pin force leans off the rigging line).
+    p.peak_sling_leg_tension = p.simulation.rigging_resultant.value * p.sling_leg_factor;
     p.dynamic_factor = p.simulation.hoist_rope_tension.value / p.static_hoist_rope_tension;
     p.rigging_dynamic_factor = p.simulation.rigging_tension.value / p.static_rigging_tension;
     p.hoist_rope_slack_time = crossing_of(watch, p, slack_watch(Quantity::hoist_rope_tension));
@@ -191,8 +193,8 @@ std::vector<CheckResult> run_checks(const Job& job, const LiftPrediction& p, con
     if (job.rigging.leg_wll) {
         const double limit = sling_share(job) * *job.rigging.leg_wll;
         checks.push_back(limit_check(job, "sling_leg_tension", "peak sling leg tension against the leg WLL",
-                                     Dimension::force, p.peak_sling_leg_tension, s.rigging_tension.time, limit,
-                                     first(Quantity::rigging_tension, limit / p.sling_leg_factor)));
+                                     Dimension::force, p.peak_sling_leg_tension, s.rigging_resultant.time, limit,
+                                     first(Quantity::rigging_resultant, limit / p.sling_leg_factor)));
     }
     if (l.dynamic_factor) {
         CheckResult c = limit_check(job, "dynamic_factor", "peak over static hoist rope tension", Dimension::ratio,

@@ -486,7 +486,9 @@ std::string peaks_section(const LiftAssessment& a, UnitSystem u) {
         qty(p.static_rigging_tension, Dimension::force, u),
         qty(s.least_rigging_tension.value, Dimension::force, u) + " at " +
             when(s.least_rigging_tension.time, p));
-    add("sling leg tension", Peak{p.peak_sling_leg_tension, s.rigging_tension.time}, Dimension::force,
+    add("rigging resultant", s.rigging_resultant, Dimension::force,
+        qty(p.static_rigging_tension, Dimension::force, u), "");
+    add("sling leg tension", Peak{p.peak_sling_leg_tension, s.rigging_resultant.time}, Dimension::force,
         qty(p.static_sling_leg_tension, Dimension::force, u), "");
     add("dynamic factor, hoist rope", Peak{p.dynamic_factor, s.hoist_rope_tension.time},
         Dimension::ratio, "1", "");
@@ -496,7 +498,8 @@ std::string peaks_section(const LiftAssessment& a, UnitSystem u) {
     out += t.render();
     out += wrap("Angles and offsets are magnitudes (either direction). Static: everything hanging "
                 "at rest. Line pull = total / " + std::to_string(parts) +
-                " parts of line. Sling leg tension = rigging tension x " + num(p.sling_leg_factor) +
+                " parts of line. Rigging resultant: the whole force between hook and rigging. "
+                "Sling leg tension = rigging resultant x " + num(p.sling_leg_factor) +
                 " (leg rule).", "  ", "  ");
     out += past_validity_note(p);
     return out;
@@ -780,8 +783,9 @@ std::string format_json(const LiftAssessment& a, UnitSystem u) {
         {"rigging_tension", peak_json(s.rigging_tension, Dimension::force, u)},
         {"least_rigging_tension", peak_json(s.least_rigging_tension, Dimension::force, u)},
         {"static_rigging_tension", quantity_json(p.static_rigging_tension, Dimension::force, u)},
+        {"rigging_resultant", peak_json(s.rigging_resultant, Dimension::force, u)},
         {"sling_leg_tension",
-         peak_json(Peak{p.peak_sling_leg_tension, s.rigging_tension.time}, Dimension::force, u)},
+         peak_json(Peak{p.peak_sling_leg_tension, s.rigging_resultant.time}, Dimension::force, u)},
         {"static_sling_leg_tension", quantity_json(p.static_sling_leg_tension, Dimension::force, u)},
         {"sling_leg_factor", quantity_json(p.sling_leg_factor, Dimension::ratio, u)},
         {"dynamic_factor",
@@ -870,6 +874,7 @@ std::string format_csv(const LiftAssessment& a, UnitSystem u) {
         {"hoist_rope_tension", Dimension::force},
         {"line_pull", Dimension::force},
         {"rigging_tension", Dimension::force},
+        {"rigging_resultant", Dimension::force},
         {"sling_leg_tension", Dimension::force},
     };
     std::string out;
@@ -889,7 +894,7 @@ std::string format_csv(const LiftAssessment& a, UnitSystem u) {
             o.hook_rope_angle, o.hook_rope_rate, o.load_angle, o.load_rate,
             o.hook_x, o.hook_z, o.load_x, o.load_z,
             o.hoist_rope_tension, o.hoist_rope_tension / parts, o.rigging_tension,
-            o.rigging_tension * leg_factor,
+            o.rigging_resultant, o.rigging_resultant * leg_factor,
         };
         static_assert(std::size(values) == std::size(columns));
         for (std::size_t c = 0; c < std::size(columns); ++c) {

@@ -88,6 +88,7 @@ Observation RigidPendulumModel::observe(double t, std::size_t interval, std::spa
     const double fx2 = p_.load_mass * ax2, fz2 = p_.load_mass * (az2 + g);
     const double fx1 = p_.hook_block_mass * ax1 + fx2, fz1 = p_.hook_block_mass * (az1 + g) + fz2;
     o.rigging_tension = -fx2 * s2 + fz2 * c2;      // along the rigging, toward the hook
+    o.rigging_resultant = std::hypot(fx2, fz2);
     o.hoist_rope_tension = -fx1 * s1 + fz1 * c1;   // along the rope, toward the support
     return o;
 }

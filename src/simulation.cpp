@@ -17,6 +17,7 @@ double quantity_value(const Observation& o, Quantity q) {
         case Quantity::load_offset: return std::fabs(o.load_x);
         case Quantity::hoist_rope_tension: return o.hoist_rope_tension;
         case Quantity::rigging_tension: return o.rigging_tension;
+        case Quantity::rigging_resultant: return o.rigging_resultant;
     }
     return 0;
 }
@@ -49,6 +50,7 @@ public:
                       track(Quantity::load_offset, result.load_offset),
                       track(Quantity::hoist_rope_tension, result.hoist_rope_tension),
                       track(Quantity::rigging_tension, result.rigging_tension),
+                      track(Quantity::rigging_resultant, result.rigging_resultant),
                       track(Quantity::hoist_rope_tension, result.least_hoist_rope_tension, true),
                       track(Quantity::rigging_tension, result.least_rigging_tension, true)};
         residual_ = {track(Quantity::load_offset, result.residual_load_offset),
@@ -166,7 +168,7 @@ private:
     std::size_t last_interval_ = 0;
     std::array<double, samples_per_step + 1> times_{};
     std::array<Observation, samples_per_step + 1> samples_{};
-    std::array<ExtremeTracker, 7> whole_run_{};
+    std::array<ExtremeTracker, 8> whole_run_{};
     std::array<ExtremeTracker, 3> residual_{};
     long next_output_ = 0;
 };

@@ -69,6 +69,7 @@ plumb::LiftAssessment synthetic_assessment() {
     s.load_offset = {0.4, 3.0};
     s.hoist_rope_tension = {32000.0, 2.0};
     s.rigging_tension = {29600.0, 2.125};
+    s.rigging_resultant = {29700.0, 2.125};
     s.least_hoist_rope_tension = {30000.0, 11.0};
     s.least_rigging_tension = {28500.0, 11.5};
     s.residual_from = 12.0;
@@ -90,6 +91,7 @@ plumb::LiftAssessment synthetic_assessment() {
         o.load_z = -3.0;
         o.hoist_rope_tension = 32000.0;
         o.rigging_tension = 29600.0;
+        o.rigging_resultant = 29700.0;
         s.trace.push_back(o);
     }
 
@@ -367,11 +369,12 @@ TEST_CASE("the CSV has a header with units and one row per observation", "[repor
         const std::vector<std::string> lines = split(plumb::format_csv(a, u), '\n');
         REQUIRE(lines.size() == a.prediction.simulation.trace.size() + 1);
         const std::vector<std::string> header = split(lines[0], ',');
-        REQUIRE(header.size() == 16);
+        REQUIRE(header.size() == 17);
         CHECK(header[0] == "time [s]");
         CHECK(header[4] == "hook_rope_angle [deg]");
         CHECK(header[5] == "hook_rope_rate [deg/s]");
-        CHECK(header[15].rfind("sling_leg_tension [", 0) == 0);
+        CHECK(header[15].rfind("rigging_resultant [", 0) == 0);
+        CHECK(header[16].rfind("sling_leg_tension [", 0) == 0);
         for (std::size_t r = 1; r < lines.size(); ++r) {
             const std::vector<std::string> cells = split(lines[r], ',');
             REQUIRE(cells.size() == header.size());
@@ -386,7 +389,9 @@ TEST_CASE("the CSV has a header with units and one row per observation", "[repor
         CHECK(header[12] == "hoist_rope_tension [kN]");
         CHECK(std::stod(cells[12]) == Approx(32.0));
         CHECK(std::stod(cells[13]) == Approx(16.0));  // 2 parts of line
-        CHECK(std::stod(cells[15]) == Approx(29.6 * 0.5 / std::sin(60.0 * deg)));
+        CHECK(std::stod(cells[15]) == Approx(29.7));
+        // The legs share the rigging resultant: 0.5 / sin 60 deg per leg (2 legs bearing).
+        CHECK(std::stod(cells[16]) == Approx(29.7 * 0.5 / std::sin(60.0 * deg)));
     }
     SECTION("US values") {
         const std::string csv = plumb::format_csv(a, UnitSystem::us_customary);

@@ -237,6 +237,9 @@ TEST_CASE("the equations of motion agree with the Newton-Euler reference at arbi
             const double rigging = -u[3] * std::sin(y[1]) + u[4] * std::cos(y[1]);
             CHECK_THAT(o.hoist_rope_tension, Catch::Matchers::WithinAbs(u[2], 1e-9 * crane.m2 * crane.g));
             CHECK_THAT(o.rigging_tension, Catch::Matchers::WithinAbs(rigging, 1e-9 * crane.m2 * crane.g));
+            // the whole pin force, side part included (the load has a radius of gyration)
+            CHECK_THAT(o.rigging_resultant,
+                       Catch::Matchers::WithinAbs(std::hypot(u[3], u[4]), 1e-9 * crane.m2 * crane.g));
         }
     }
 }

@@ -36,6 +36,8 @@ struct Observation {
     double load_x = 0, load_z = 0;  // m, load CG relative to the support (z up)
     double hoist_rope_tension = 0;  // N, total over all parts of line
     double rigging_tension = 0;     // N, force of the rigging on the load along the rigging (toward the hook)
+    double rigging_resultant = 0;   // N, magnitude of that force; above rigging_tension only for a
+                                    //    load with a radius of gyration, whose pin force has a side part
 };
 
 class SwingModel : public SecondOrderSystem {

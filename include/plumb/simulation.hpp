@@ -18,7 +18,8 @@ enum class Quantity {
     load_angle,          // |theta2|
     load_offset,         // |horizontal offset of the load CG from the support|
     hoist_rope_tension,  // total, signed (negative would mean compression: slack)
-    rigging_tension,     // resultant, signed along the rigging
+    rigging_tension,     // signed, along the rigging
+    rigging_resultant,   // magnitude of the force between hook and rigging
 };
 
 double quantity_value(const Observation& o, Quantity q);
@@ -45,7 +46,7 @@ struct SimulationRequest {
 
 struct SimulationResult {
     Peak hook_rope_angle, load_angle, load_offset;  // largest magnitudes
-    Peak hoist_rope_tension, rigging_tension;       // largest values
+    Peak hoist_rope_tension, rigging_tension, rigging_resultant;  // largest values
     Peak least_hoist_rope_tension, least_rigging_tension;  // smallest values
     // Largest magnitudes from the end of the last move to end_time.
     double residual_from = 0;
