@@ -30,23 +30,41 @@ std::vector<double> RigidPendulumModel::initial_state() const {
     return {initial_angle_, initial_angle_, initial_rate_, initial_rate_};
 }
 
+namespace {
+
+// Sines and cosines of both link angles: the right-hand side needs no others
+// (the angle difference follows by the addition formulas), and they are the
+// costliest part of it.
+struct LinkTrig {
+    double s1, c1, s2, c2;
+    LinkTrig(double theta1, double theta2)
+        : s1(std::sin(theta1)), c1(std::cos(theta1)), s2(std::sin(theta2)), c2(std::cos(theta2)) {}
+};
+
 // docs/model.md, "Equations of motion": M(q) q'' = r(q, q', a), solved by the
 // 2x2 inverse. M is positive definite for any angles (its determinant is
 // m2 L1^2 [(m1 + m2 sin^2(th1-th2)) L2^2 + (m1+m2) k^2] > 0).
-void RigidPendulumModel::angular_accelerations(double a, double theta1, double theta2, double omega1,
-                                               double omega2, double& alpha1, double& alpha2) const {
-    const double m1 = p_.hook_block_mass, m2 = p_.load_mass;
-    const double L1 = p_.rope_length, L2 = p_.rigging_length, k = p_.radius_of_gyration, g = p_.gravity;
-    const double c = std::cos(theta1 - theta2), s = std::sin(theta1 - theta2);
+void solve_angular_accelerations(const RigidPendulumParameters& p, double a, const LinkTrig& t, double omega1,
+                                 double omega2, double& alpha1, double& alpha2) {
+    const double m1 = p.hook_block_mass, m2 = p.load_mass;
+    const double L1 = p.rope_length, L2 = p.rigging_length, k = p.radius_of_gyration, g = p.gravity;
+    const double c = t.c1 * t.c2 + t.s1 * t.s2;  // cos(theta1 - theta2)
+    const double s = t.s1 * t.c2 - t.c1 * t.s2;  // sin(theta1 - theta2)
     const double M11 = (m1 + m2) * L1 * L1;
     const double M12 = m2 * L1 * L2 * c;
     const double M22 = m2 * (L2 * L2 + k * k);
-    const double r1 = -m2 * L1 * L2 * s * omega2 * omega2 -
-                      (m1 + m2) * L1 * (g * std::sin(theta1) + a * std::cos(theta1));
-    const double r2 = m2 * L1 * L2 * s * omega1 * omega1 - m2 * L2 * (g * std::sin(theta2) + a * std::cos(theta2));
+    const double r1 = -m2 * L1 * L2 * s * omega2 * omega2 - (m1 + m2) * L1 * (g * t.s1 + a * t.c1);
+    const double r2 = m2 * L1 * L2 * s * omega1 * omega1 - m2 * L2 * (g * t.s2 + a * t.c2);
     const double det = M11 * M22 - M12 * M12;
     alpha1 = (M22 * r1 - M12 * r2) / det;
     alpha2 = (M11 * r2 - M12 * r1) / det;
+}
+
+}  // namespace
+
+void RigidPendulumModel::angular_accelerations(double a, double theta1, double theta2, double omega1,
+                                               double omega2, double& alpha1, double& alpha2) const {
+    solve_angular_accelerations(p_, a, LinkTrig(theta1, theta2), omega1, omega2, alpha1, alpha2);
 }
 
 void RigidPendulumModel::derivatives(double t, std::size_t interval, std::span<const double> x,
@@ -54,7 +72,7 @@ void RigidPendulumModel::derivatives(double t, std::size_t interval, std::span<c
     const double a = motion_.at(t, interval).acceleration;
     dxdt[0] = x[2];
     dxdt[1] = x[3];
-    angular_accelerations(a, x[0], x[1], x[2], x[3], dxdt[2], dxdt[3]);
+    solve_angular_accelerations(p_, a, LinkTrig(x[0], x[1]), x[2], x[3], dxdt[2], dxdt[3]);
 }
 
 // docs/model.md, "Tensions": Newton's second law for the load, then for the
@@ -65,10 +83,11 @@ Observation RigidPendulumModel::observe(double t, std::size_t interval, std::spa
     Observation o;
     o.time = t;
     o.support = motion_.at(t, interval);
+    const LinkTrig trig(th1, th2);
     double al1 = 0, al2 = 0;
-    angular_accelerations(o.support.acceleration, th1, th2, w1, w2, al1, al2);
+    solve_angular_accelerations(p_, o.support.acceleration, trig, w1, w2, al1, al2);
 
-    const double s1 = std::sin(th1), c1 = std::cos(th1), s2 = std::sin(th2), c2 = std::cos(th2);
+    const double s1 = trig.s1, c1 = trig.c1, s2 = trig.s2, c2 = trig.c2;
     o.hook_rope_angle = th1;
     o.load_angle = th2;
     o.hook_rope_rate = w1;
