@@ -31,6 +31,23 @@ double sling_share(const Job& job) { return job.limits.sling_leg_share.value_or(
 
 WatchLevel slack_watch(Quantity q) { return {q, 0.0, true}; }
 
+// The levels of the tension checks, in the simulated quantity they watch. The
+// checks find their first exceedance by looking these up again, so both sides
+// use these functions and nothing else.
+double hoist_load_limit(const Job& job) { return rope_share(job) * job.hoist.rated_load; }
+double line_pull_limit(const Job& job) { return rope_share(job) * *job.hoist.rope_wll; }
+WatchLevel line_pull_watch(const Job& job) {
+    return {Quantity::hoist_rope_tension, line_pull_limit(job) * job.hoist.parts_of_line};
+}
+double sling_leg_limit(const Job& job) { return sling_share(job) * *job.rigging.leg_wll; }
+WatchLevel sling_leg_watch(const Job& job) {
+    return {Quantity::rigging_resultant, sling_leg_limit(job) / sling_leg_factor(job)};
+}
+double static_hook_load(const Job& job) { return (job.hook_block.mass + job.load.mass) * job.environment.gravity; }
+WatchLevel dynamic_factor_watch(const Job& job) {
+    return {Quantity::hoist_rope_tension, *job.limits.dynamic_factor * static_hook_load(job)};
+}
+
 std::optional<double> crossing_of(const std::vector<WatchLevel>& watch, const LiftPrediction& p,
                                   const WatchLevel& level) {
     for (std::size_t i = 0; i < watch.size() && i < p.simulation.first_crossing.size(); ++i) {
@@ -102,17 +119,10 @@ std::vector<WatchLevel> watch_levels(const Job& job) {
     if (l.hook_rope_angle) w.push_back({Quantity::hook_rope_angle, *l.hook_rope_angle});
     if (l.load_angle) w.push_back({Quantity::load_angle, *l.load_angle});
     if (l.load_offset) w.push_back({Quantity::load_offset, *l.load_offset});
-    w.push_back({Quantity::hoist_rope_tension, rope_share(job) * job.hoist.rated_load});
-    if (job.hoist.rope_wll) {
-        w.push_back({Quantity::hoist_rope_tension, rope_share(job) * *job.hoist.rope_wll * job.hoist.parts_of_line});
-    }
-    if (job.rigging.leg_wll) {
-        w.push_back({Quantity::rigging_resultant, sling_share(job) * *job.rigging.leg_wll / sling_leg_factor(job)});
-    }
-    if (l.dynamic_factor) {
-        const double static_tension = (job.hook_block.mass + job.load.mass) * job.environment.gravity;
-        w.push_back({Quantity::hoist_rope_tension, *l.dynamic_factor * static_tension});
-    }
+    w.push_back({Quantity::hoist_rope_tension, hoist_load_limit(job)});
+    if (job.hoist.rope_wll) w.push_back(line_pull_watch(job));
+    if (job.rigging.leg_wll) w.push_back(sling_leg_watch(job));
+    if (l.dynamic_factor) w.push_back(dynamic_factor_watch(job));
     w.push_back(slack_watch(Quantity::hoist_rope_tension));
     w.push_back(slack_watch(Quantity::rigging_tension));
     return w;
@@ -153,6 +163,7 @@ std::vector<CheckResult> run_checks(const Job& job, const LiftPrediction& p, con
     const Limits& l = job.limits;
     const SimulationResult& s = p.simulation;
     auto first = [&](Quantity q, double level) { return crossing_of(watch, p, {q, level}); };
+    auto first_at = [&](const WatchLevel& level) { return crossing_of(watch, p, level); };
     std::vector<CheckResult> checks;
     if (l.hook_rope_angle) {
         checks.push_back(limit_check(job, "hook_rope_angle", "peak angle of the hoist rope from vertical",
@@ -177,7 +188,7 @@ std::vector<CheckResult> run_checks(const Job& job, const LiftPrediction& p, con
         checks.push_back(std::move(c));
     }
     {
-        const double limit = rope_share(job) * job.hoist.rated_load;
+        const double limit = hoist_load_limit(job);
         CheckResult c = limit_check(job, "hoist_load", "peak hoist rope tension (all parts of line) against the rated load",
                                     Dimension::force, s.hoist_rope_tension.value, s.hoist_rope_tension.time, limit,
                                     first(Quantity::hoist_rope_tension, limit));
@@ -185,21 +196,19 @@ std::vector<CheckResult> run_checks(const Job& job, const LiftPrediction& p, con
         checks.push_back(std::move(c));
     }
     if (job.hoist.rope_wll) {
-        const double limit = rope_share(job) * *job.hoist.rope_wll;
         checks.push_back(limit_check(job, "line_pull", "peak tension per part of line against the rope WLL",
-                                     Dimension::force, p.peak_line_pull, s.hoist_rope_tension.time, limit,
-                                     first(Quantity::hoist_rope_tension, limit * job.hoist.parts_of_line)));
+                                     Dimension::force, p.peak_line_pull, s.hoist_rope_tension.time,
+                                     line_pull_limit(job), first_at(line_pull_watch(job))));
     }
     if (job.rigging.leg_wll) {
-        const double limit = sling_share(job) * *job.rigging.leg_wll;
         checks.push_back(limit_check(job, "sling_leg_tension", "peak sling leg tension against the leg WLL",
-                                     Dimension::force, p.peak_sling_leg_tension, s.rigging_resultant.time, limit,
-                                     first(Quantity::rigging_resultant, limit / p.sling_leg_factor)));
+                                     Dimension::force, p.peak_sling_leg_tension, s.rigging_resultant.time,
+                                     sling_leg_limit(job), first_at(sling_leg_watch(job))));
     }
     if (l.dynamic_factor) {
         CheckResult c = limit_check(job, "dynamic_factor", "peak over static hoist rope tension", Dimension::ratio,
                                     p.dynamic_factor, s.hoist_rope_tension.time, *l.dynamic_factor,
-                                    first(Quantity::hoist_rope_tension, *l.dynamic_factor * p.static_hoist_rope_tension));
+                                    first_at(dynamic_factor_watch(job)));
         // What a dynamic factor limit allows is the increment above 1: the
         // margin and the caution band are shares of that increment.
         if (*l.dynamic_factor > 1) {
