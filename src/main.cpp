@@ -149,6 +149,14 @@ int run(int argc, char** argv) {
     } catch (const CLI::Success& e) {  // --help, --help-all, --version
         return app.exit(e);
     } catch (const CLI::ParseError& e) {
+        // A mistyped command reads better as what it is than as "a subcommand is required".
+        if (argc > 1 && argv[1][0] != '-') {
+            const std::string word = argv[1];
+            if (word != "check" && word != "modes") {
+                print_error("unknown command '" + word + "'; the commands are 'check' and 'modes' (see 'plumb --help')");
+                return static_cast<int>(plumb::ExitStatus::bad_input);
+            }
+        }
         print_error(std::string(e.what()) + " (see 'plumb --help')");
         return static_cast<int>(plumb::ExitStatus::bad_input);
     }

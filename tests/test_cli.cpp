@@ -259,3 +259,9 @@ TEST_CASE("a rope that goes slack fails the lift and bounds the model's validity
     CHECK(doc["model_valid_until"].get<double>() < 0.5);
     CHECK(doc["overall_verdict"] == "FAIL");
 }
+
+TEST_CASE("a mistyped command is named in the error", "[cli]") {
+    const RunResult r = run_plumb("chek job.yaml");
+    CHECK(r.status == 2);
+    CHECK_THAT(r.err, Catch::Contains("unknown command 'chek'"));
+}
