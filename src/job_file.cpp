@@ -6,6 +6,7 @@
 // The schema is described key by key in docs/job-file.md.
 #include "plumb/job_file.hpp"
 
+#include <yaml-cpp/eventhandler.h>
 #include <yaml-cpp/yaml.h>
 
 #include <algorithm>
@@ -911,24 +912,55 @@ Job build_job(const Context& ctx, const YAML::Node& root) {
     return job;
 }
 
+// Counts the documents of a YAML text, stopping at the second. yaml-cpp 0.7's
+// LoadAll never ends on a ',' outside any flow collection (it yields an empty
+// document there without moving on, until memory runs out), so the documents
+// are counted here, one bounded step at a time, before anything is loaded.
+class DocumentCounter final : public YAML::EventHandler {
+public:
+    int documents = 0;
+    YAML::Mark second_start;
+    void OnDocumentStart(const YAML::Mark& mark) override {
+        if (++documents == 2) second_start = mark;
+    }
+    void OnDocumentEnd() override {}
+    void OnNull(const YAML::Mark&, YAML::anchor_t) override {}
+    void OnAlias(const YAML::Mark&, YAML::anchor_t) override {}
+    void OnScalar(const YAML::Mark&, const std::string&, YAML::anchor_t, const std::string&) override {}
+    void OnSequenceStart(const YAML::Mark&, const std::string&, YAML::anchor_t, YAML::EmitterStyle::value) override {}
+    void OnSequenceEnd() override {}
+    void OnMapStart(const YAML::Mark&, const std::string&, YAML::anchor_t, YAML::EmitterStyle::value) override {}
+    void OnMapEnd() override {}
+};
+
+void require_one_document(const Context& ctx, const std::string& yaml_text) {
+    std::istringstream in(yaml_text);
+    YAML::Parser parser(in);
+    DocumentCounter counter;
+    while (counter.documents < 2 && parser.HandleNextDocument(counter)) {
+    }
+    if (counter.documents < 2) return;
+    const auto at = static_cast<std::size_t>(std::max(0, counter.second_start.pos));
+    if (at < yaml_text.size() && yaml_text[at] == ',') {
+        fail(ctx, counter.second_start, "", "malformed YAML: a ',' outside any [list] or {map}");
+    }
+    fail(ctx, counter.second_start, "",
+         "the file holds more than one YAML document; a job file holds exactly one job");
+}
+
 }  // namespace
 
 Job parse_job(const std::string& yaml_text, const std::string& source_name,
               const std::string& base_folder) {
     const Context ctx{source_name, fs::path(base_folder.empty() ? "." : base_folder)};
-    std::vector<YAML::Node> documents;
+    YAML::Node root;
     try {
-        documents = YAML::LoadAll(yaml_text);
+        require_one_document(ctx, yaml_text);
+        root = YAML::Load(yaml_text);
     } catch (const YAML::Exception& e) {
         fail(ctx, e.mark, "", "malformed YAML: " + e.msg);
     }
-    if (documents.empty() || (documents.size() == 1 && documents[0].IsNull()))
-        throw InputError(SourceLocation{source_name, 0, 0, ""}, "the file is empty: no job in it");
-    if (documents.size() > 1)
-        fail(ctx, documents[1].Mark(), "",
-             "the file holds " + std::to_string(documents.size()) +
-                 " YAML documents; a job file holds exactly one job");
-    const YAML::Node& root = documents[0];
+    if (root.IsNull()) throw InputError(SourceLocation{source_name, 0, 0, ""}, "the file is empty: no job in it");
     if (!root.IsMap())
         fail(ctx, root.Mark(), "",
              "expected a map of sections (" + join(top_keys) + ") at the top level, got " + describe(root));

@@ -335,7 +335,17 @@ TEST_CASE("a top level that is not a map is an input error", "[job_file]") {
 
 TEST_CASE("more than one YAML document in a job file is an input error", "[job_file]") {
     CHECK_THAT(error_of(full_job + "---\n" + full_job),
-               Contains("holds 2 YAML documents; a job file holds exactly one job"));
+               Contains("holds more than one YAML document; a job file holds exactly one job"));
+}
+
+TEST_CASE("a comma outside any list or map is an input error, not a runaway parse", "[job_file]") {
+    // yaml-cpp 0.7's LoadAll loops without end on these; the parser must not.
+    for (const std::string& text : {std::string(","), std::string(" , and a\n"), std::string("\"a\",\n"),
+                                   std::string("# note\n,job: x\n")}) {
+        INFO(text);
+        CHECK_THAT(error_of(text), Contains("job.yaml:"));
+    }
+    CHECK_THAT(error_of(",\n"), Contains("job.yaml:1:1: malformed YAML: a ',' outside any [list] or {map}"));
 }
 
 // ---------------------------------------------------------------- keys
