@@ -47,6 +47,8 @@ constexpr double max_top_speed = 10;             // m/s
 constexpr double max_acceleration = 5;           // m/s^2
 constexpr double max_jerk = 100;                 // m/s^3
 constexpr double max_total_mass = 2000e3;        // kg (2000 t)
+constexpr double max_move_distance = 2000;       // m, longer than any crane runway
+constexpr double max_motion_duration = 4 * 3600; // s: a planned motion, not a shift's log
 
 // ---------------------------------------------------------------- keys
 
@@ -439,6 +441,7 @@ Move read_move(const Section& s) {
     m.distance = s.quantity("distance", Dimension::length);
     if (m.distance == 0)
         s.fail_at("distance", "must not be zero: a move travels some distance (negative to travel backwards)");
+    s.check_plausible("distance", std::fabs(m.distance), Dimension::length, max_move_distance, "move distance");
 
     m.top_speed = s.quantity("top_speed", Dimension::speed);
     s.check_positive("top_speed", m.top_speed, Dimension::speed);
@@ -461,7 +464,7 @@ Move read_move(const Section& s) {
     }
 
     m.pause_before = s.optional_quantity("pause_before", Dimension::time).value_or(0.0);
-    s.check_range("pause_before", m.pause_before, Dimension::time, 0, true, inf, false);
+    s.check_range("pause_before", m.pause_before, Dimension::time, 0, true, max_motion_duration, true);
     return m;
 }
 
@@ -617,6 +620,11 @@ public:
                  "the speed in the first row must be 0 (the support starts at rest), got " +
                      show(first.sample.speed, Dimension::speed));
         const Row& last = rows.back();
+        if (last.sample.time > max_motion_duration)
+            fail(last.line, last.time_column,
+                 "implausible speed history of " + show(last.sample.time, Dimension::time) + " (more than " +
+                     show(max_motion_duration, Dimension::time) +
+                     "): check the time unit in the header, or cut the log to the lift");
         if (last.sample.speed != 0)
             fail(last.line, last.speed_column,
                  "the speed in the last row must be 0 (the support ends at rest), got " +
@@ -676,6 +684,17 @@ void read_motion(const Section& s, Job& job) {
         const YAML::Mark mark = item.Mark().is_null() ? moves->mark() : item.Mark();
         job.motion.moves.push_back(read_move(Section(s.ctx(), item, path, mark, move_keys)));
     }
+    // Upper bound of the moves' duration: coast the whole way plus both speed changes.
+    double duration = 0;
+    for (const Move& m : job.motion.moves) {
+        const double ramps = m.jerk ? m.acceleration / *m.jerk + m.deceleration / *m.jerk : 0.0;
+        duration += m.pause_before + std::fabs(m.distance) / m.top_speed + m.top_speed / (2 * m.acceleration) +
+                    m.top_speed / (2 * m.deceleration) + ramps;
+    }
+    if (duration > max_motion_duration)
+        s.fail_at(*moves, "implausible motion: the moves last about " + show(duration, Dimension::time) +
+                              " (more than " + show(max_motion_duration, Dimension::time) +
+                              "); plan the lift's moves, not a shift");
 }
 
 // ---------------------------------------------------------------- hoist and hook

@@ -838,3 +838,13 @@ TEST_CASE("a numerical error says how far the integrator got", "[errors]") {
     CHECK(e.time_reached() == 12.3454);
     CHECK(e.exit_code() == 3);
 }
+
+TEST_CASE("an implausible move distance or motion duration asks to check the units", "[job_file]") {
+    CHECK_THAT(error_of(full_with("distance: 12 m", "distance: 12 km")),
+               Contains("implausible move distance"));
+    CHECK_THAT(error_of(full_with("pause_before: 2 s", "pause_before: 5 h")),
+               Contains("motion.moves[1].pause_before: must be at most"));
+    // 1500 m at 3 m/min is 8.3 h of travel.
+    CHECK_THAT(error_of(full_with("distance: 12 m\n      top_speed: 40 m/min", "distance: 1500 m\n      top_speed: 3 m/min")),
+               Contains("motion.moves: implausible motion: the moves last about"));
+}
