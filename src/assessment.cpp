@@ -162,23 +162,22 @@ LiftPrediction predict_lift(const Job& job, const std::vector<WatchLevel>& watch
 std::vector<CheckResult> run_checks(const Job& job, const LiftPrediction& p, const std::vector<WatchLevel>& watch) {
     const Limits& l = job.limits;
     const SimulationResult& s = p.simulation;
-    auto first = [&](Quantity q, double level) { return crossing_of(watch, p, {q, level}); };
     auto first_at = [&](const WatchLevel& level) { return crossing_of(watch, p, level); };
     std::vector<CheckResult> checks;
     if (l.hook_rope_angle) {
         checks.push_back(limit_check(job, "hook_rope_angle", "peak angle of the hoist rope from vertical",
                                      Dimension::angle, s.hook_rope_angle.value, s.hook_rope_angle.time,
-                                     *l.hook_rope_angle, first(Quantity::hook_rope_angle, *l.hook_rope_angle)));
+                                     *l.hook_rope_angle, first_at({Quantity::hook_rope_angle, *l.hook_rope_angle})));
     }
     if (l.load_angle) {
         checks.push_back(limit_check(job, "load_angle", "peak angle of the rigging (hook to load) from vertical",
                                      Dimension::angle, s.load_angle.value, s.load_angle.time, *l.load_angle,
-                                     first(Quantity::load_angle, *l.load_angle)));
+                                     first_at({Quantity::load_angle, *l.load_angle})));
     }
     if (l.load_offset) {
         checks.push_back(limit_check(job, "load_offset", "peak horizontal offset of the load from the support",
                                      Dimension::length, s.load_offset.value, s.load_offset.time, *l.load_offset,
-                                     first(Quantity::load_offset, *l.load_offset)));
+                                     first_at({Quantity::load_offset, *l.load_offset})));
     }
     if (l.residual_swing) {
         CheckResult c = limit_check(job, "residual_swing", "load offset amplitude after the last move ends",
@@ -191,7 +190,7 @@ std::vector<CheckResult> run_checks(const Job& job, const LiftPrediction& p, con
         const double limit = hoist_load_limit(job);
         CheckResult c = limit_check(job, "hoist_load", "peak hoist rope tension (all parts of line) against the rated load",
                                     Dimension::force, s.hoist_rope_tension.value, s.hoist_rope_tension.time, limit,
-                                    first(Quantity::hoist_rope_tension, limit));
+                                    first_at({Quantity::hoist_rope_tension, limit}));
         if (!l.rope_tension_share) c.note = "no rope_tension limit set: checked at 100 % of the rated load";
         checks.push_back(std::move(c));
     }

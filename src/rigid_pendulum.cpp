@@ -69,7 +69,7 @@ void RigidPendulumModel::angular_accelerations(double a, double theta1, double t
 
 void RigidPendulumModel::derivatives(double t, std::size_t interval, std::span<const double> x,
                                      std::span<double> dxdt) const {
-    const double a = motion_.at(t, interval).acceleration;
+    const double a = motion_.acceleration(t, interval);
     dxdt[0] = x[2];
     dxdt[1] = x[3];
     solve_angular_accelerations(p_, a, LinkTrig(x[0], x[1]), x[2], x[3], dxdt[2], dxdt[3]);

@@ -3,6 +3,7 @@
 // where acceleration or jerk jumps; the integrator restarts there.
 #pragma once
 
+#include <algorithm>
 #include <cstddef>
 #include <vector>
 
@@ -25,6 +26,8 @@ struct MotionPiece {
     double jerk = 0;  // m/s^3
 
     SupportState at(double t) const;
+    // The acceleration alone: all the equations of motion need, on their hot path.
+    double acceleration_at(double t) const { return at_start.acceleration + (std::min(t, end) - start) * jerk; }
 };
 
 class SupportMotion {
@@ -40,6 +43,7 @@ public:
     // The state at time t evaluated on a given piece, so that at a switch time
     // the integrator sees the left or right limit as it needs.
     SupportState at(double t, std::size_t piece) const { return pieces_[piece].at(t); }
+    double acceleration(double t, std::size_t piece) const { return pieces_[piece].acceleration_at(t); }
 
     const std::vector<MotionPiece>& pieces() const { return pieces_; }
     // Time when the support comes to rest for good after the last move.
