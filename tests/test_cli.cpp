@@ -88,7 +88,7 @@ std::string write_job(const plumb_test::ScratchFolder& folder, const std::string
 
 }  // namespace
 
-TEST_CASE("--help exits 0 for the program and for each subcommand", "[cli]") {
+TEST_CASE("plumb --help exits 0 for the program and for each subcommand", "[cli]") {
     const RunResult top = run_plumb("--help");
     CHECK(top.status == 0);
     CHECK(contains(top.out, "check"));
@@ -108,7 +108,7 @@ TEST_CASE("--help exits 0 for the program and for each subcommand", "[cli]") {
     CHECK_FALSE(contains(modes.out, "--json"));
 }
 
-TEST_CASE("--version exits 0 and names the program", "[cli]") {
+TEST_CASE("plumb --version exits 0 and names the program", "[cli]") {
     const RunResult r = run_plumb("--version");
     CHECK(r.status == 0);
     CHECK(r.out.rfind("plumb ", 0) == 0);
@@ -172,7 +172,7 @@ TEST_CASE("plumb check of a gentle lift prints the summary with cautions and exi
     CHECK(contains(us.out, "32.8084 ft"));  // the 10 m hoist rope
 }
 
-TEST_CASE("--json and --csv write complete, parseable files", "[cli]") {
+TEST_CASE("plumb check with --json and --csv writes complete, parseable files", "[cli]") {
     plumb_test::ScratchFolder folder;
     const std::string job = write_job(folder, "job.yaml", gentle_job);
     const std::string json_path = folder.file("result.json");
