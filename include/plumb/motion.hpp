@@ -7,6 +7,8 @@
 #include <cstddef>
 #include <vector>
 
+#include <Eigen/Core>
+
 #include "plumb/job.hpp"
 
 namespace plumb {
@@ -15,6 +17,18 @@ struct SupportState {
     double position = 0;      // m
     double speed = 0;         // m/s
     double acceleration = 0;  // m/s^2
+};
+
+// The suspension point in three dimensions (x, y horizontal, z up; fixed
+// ground axes) and the hoist channel (unstretched rope length, sheave to hook
+// block), at one instant. Planar jobs move along x only.
+struct SupportKinematics {
+    Eigen::Vector3d position = Eigen::Vector3d::Zero();      // m
+    Eigen::Vector3d velocity = Eigen::Vector3d::Zero();      // m/s
+    Eigen::Vector3d acceleration = Eigen::Vector3d::Zero();  // m/s^2
+    double rope_length = 0;        // m
+    double rope_speed = 0;         // m/s, positive when paying out (lowering)
+    double rope_acceleration = 0;  // m/s^2
 };
 
 // One piece: on [start, end] the jerk is constant. The last piece of a motion
