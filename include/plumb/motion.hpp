@@ -31,6 +31,19 @@ struct SupportKinematics {
     double rope_acceleration = 0;  // m/s^2
 };
 
+// The whole support path as models see it: kinematics at t on a given
+// integration interval (the right or left limit at a break), and the break
+// times (every time where any channel's acceleration or jerk jumps), sorted,
+// starting at 0. The last interval extends to +infinity.
+class SupportTrajectory {
+public:
+    virtual ~SupportTrajectory() = default;
+    virtual SupportKinematics at(double t, std::size_t interval) const = 0;
+    virtual const std::vector<double>& breaks() const = 0;
+    // When every channel has come to rest for good.
+    virtual double end_of_motion() const = 0;
+};
+
 // One piece: on [start, end] the jerk is constant. The last piece of a motion
 // is the support at rest after the last move, with end = +infinity.
 struct MotionPiece {
