@@ -33,10 +33,10 @@ RigidPendulumModel benchmark_case() {
 }
 
 std::vector<double> peaks_of(const SimulationResult& r) {
-    return {r.hook_rope_angle.value,    r.load_angle.value,         r.load_offset.value,
-            r.residual_load_offset.value, r.residual_hook_rope_angle.value, r.residual_load_angle.value,
-            r.hoist_rope_tension.value, r.rigging_tension.value,    r.least_hoist_rope_tension.value,
-            r.least_rigging_tension.value};
+    return {r.peak[plumb::Quantity::hook_rope_angle].value,    r.peak[plumb::Quantity::load_angle].value,         r.peak[plumb::Quantity::load_offset].value,
+            r.residual[plumb::Quantity::load_offset].value, r.residual[plumb::Quantity::hook_rope_angle].value, r.residual[plumb::Quantity::load_angle].value,
+            r.peak[plumb::Quantity::hoist_rope_tension].value, r.peak[plumb::Quantity::rigging_tension].value,    r.least[plumb::Quantity::hoist_rope_tension].value,
+            r.least[plumb::Quantity::rigging_tension].value};
 }
 
 double largest_relative_error(const SimulationResult& r, const std::vector<double>& reference) {

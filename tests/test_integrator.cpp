@@ -146,8 +146,8 @@ TEST_CASE("one model simulated from several threads at once gives the serial res
     for (auto& r : parallel) threads.emplace_back([&] { r = simulate(model, request); });
     for (auto& t : threads) t.join();
     for (const auto& r : parallel) {
-        CHECK(r.load_angle.value == serial.load_angle.value);
-        CHECK(r.hoist_rope_tension.value == serial.hoist_rope_tension.value);
-        CHECK(r.residual_load_offset.value == serial.residual_load_offset.value);
+        CHECK(r.peak[plumb::Quantity::load_angle].value == serial.peak[plumb::Quantity::load_angle].value);
+        CHECK(r.peak[plumb::Quantity::hoist_rope_tension].value == serial.peak[plumb::Quantity::hoist_rope_tension].value);
+        CHECK(r.residual[plumb::Quantity::load_offset].value == serial.residual[plumb::Quantity::load_offset].value);
     }
 }

@@ -34,8 +34,8 @@ TEST_CASE("the first time a swing limit is reached is exact between samples", "[
     CHECK(*r.first_crossing[0] == Approx(2 * std::numbers::pi / (3 * w)).margin(1e-5));
     // The peak, 2 phi, at half a period (or a whole number of periods later: undamped,
     // every swing reaches it again).
-    CHECK(r.hook_rope_angle.value == Approx(2 * phi).epsilon(1e-5));
-    CHECK(std::remainder(r.hook_rope_angle.time - std::numbers::pi / w, 2 * std::numbers::pi / w) ==
+    CHECK(r.peak[plumb::Quantity::hook_rope_angle].value == Approx(2 * phi).epsilon(1e-5));
+    CHECK(std::remainder(r.peak[plumb::Quantity::hook_rope_angle].time - std::numbers::pi / w, 2 * std::numbers::pi / w) ==
           Approx(0.0).margin(1e-3));
 }
 

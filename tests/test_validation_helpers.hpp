@@ -37,6 +37,11 @@ inline plumb::SupportMotion support_at_rest() {
     return plumb::SupportMotion::from_speed_history({{0.0, 0.0}, {1.0, 0.0}});
 }
 
+// The natural modes the rigid model describes for these parameters.
+inline plumb::SwingModes linear_swing_modes(const plumb::RigidPendulumParameters& p) {
+    return *plumb::RigidPendulumModel(p, support_at_rest()).describe().modes;
+}
+
 // One move: accelerate at acceleration to top_speed, coast, decelerate at deceleration.
 inline plumb::SupportMotion one_move(double distance, double top_speed, double acceleration,
                                      double deceleration) {

@@ -52,7 +52,7 @@ TEST_CASE("mode frequencies match the Kibble-Berkshire double pendulum formula")
         {200, 4000, 12, 3}, {500, 1000, 20, 5}, {1000, 100, 8, 8}, {350, 7000, 30, 1.5}};
     for (const auto& c : cases) {
         CAPTURE(c.m1, c.m2, c.L1, c.L2);
-        const auto modes = plumb::linear_swing_modes(parameters(c.m1, c.m2, c.L1, c.L2));
+        const auto modes = linear_swing_modes(parameters(c.m1, c.m2, c.L1, c.L2));
         const Omegas expected = kibble_berkshire(c.m1, c.m2, c.L1, c.L2);  // Kibble & Berkshire Eq. 11.21 [found]
         // Same quadratic solved twice: only rounding separates them.
         CHECK_THAT(modes.first.angular_frequency, WithinRel(expected.slow, 1e-10));
@@ -64,7 +64,7 @@ TEST_CASE("mode frequencies match the Kibble-Berkshire double pendulum formula")
 
 TEST_CASE("equal masses and lengths give omega squared of (2 -+ sqrt 2) g/L") {
     const double L = 5.0;
-    const auto modes = plumb::linear_swing_modes(parameters(800, 800, L, L));
+    const auto modes = linear_swing_modes(parameters(800, 800, L, L));
     // Taylor, Classical Mechanics (2005), double pendulum with equal masses and lengths [found]
     CHECK_THAT(modes.first.angular_frequency, WithinRel(std::sqrt((2 - std::sqrt(2.0)) * g0 / L), 1e-12));
     CHECK_THAT(modes.second.angular_frequency, WithinRel(std::sqrt((2 + std::sqrt(2.0)) * g0 / L), 1e-12));
@@ -76,7 +76,7 @@ TEST_CASE("equal masses and lengths give omega squared of (2 -+ sqrt 2) g/L") {
 
 TEST_CASE("a load far heavier than the hook block swings as one pendulum of length L1 + L2") {
     const double m1 = 1.0, m2 = 1.0e6, L1 = 10.0, L2 = 3.0;
-    const auto modes = plumb::linear_swing_modes(parameters(m1, m2, L1, L2));
+    const auto modes = linear_swing_modes(parameters(m1, m2, L1, L2));
     // Kibble & Berkshire, limit m2 >> m1 [found]. The first-order corrections are
     // O(m1/m2) = 1e-6 (9e-8 and 4e-7 here [derived]); tolerance 1e-5.
     CHECK_THAT(modes.first.angular_frequency, WithinRel(std::sqrt(g0 / (L1 + L2)), 1e-5));
@@ -86,7 +86,7 @@ TEST_CASE("a load far heavier than the hook block swings as one pendulum of leng
 
 TEST_CASE("a hook block far heavier than the load leaves two independent pendulums") {
     const double m1 = 1.0e6, m2 = 1.0, L1 = 10.0, L2 = 3.0;
-    const auto point = plumb::linear_swing_modes(parameters(m1, m2, L1, L2));
+    const auto point = linear_swing_modes(parameters(m1, m2, L1, L2));
     // Kibble & Berkshire, limit m1 >> m2 [found]; corrections O(m2/m1) = 1e-6
     // (2e-7 and 7e-7 here [derived]); tolerance 1e-5.
     CHECK_THAT(point.first.angular_frequency, WithinRel(std::sqrt(g0 / L1), 1e-5));
@@ -97,28 +97,28 @@ TEST_CASE("a hook block far heavier than the load leaves two independent pendulu
     // pendulum, a standard textbook result [memory]; also the m1 >> m2 limit of
     // det(K - w^2 M) = 0 [derived]).
     const double k = 1.2;
-    const auto body = plumb::linear_swing_modes(parameters(m1, m2, L1, L2, k));
+    const auto body = linear_swing_modes(parameters(m1, m2, L1, L2, k));
     CHECK_THAT(body.first.angular_frequency, WithinRel(std::sqrt(g0 / L1), 1e-5));
     CHECK_THAT(body.second.angular_frequency, WithinRel(std::sqrt(g0 * L2 / (L2 * L2 + k * k)), 1e-5));
 }
 
 TEST_CASE("mode frequencies with a radius of gyration are roots of det(K - omega^2 M)") {
     const double m1 = 600, m2 = 5000, L1 = 14, L2 = 2.5, k = 1.8;
-    const auto modes = plumb::linear_swing_modes(parameters(m1, m2, L1, L2, k));
+    const auto modes = linear_swing_modes(parameters(m1, m2, L1, L2, k));
     // det(K - w^2 M) = 0 [derived, docs/model.md section 6]. Scale: the
     // determinant's size at w = 0 is K11 K22; a root's residual should be rounding.
     const double scale = (m1 + m2) * g0 * L1 * m2 * g0 * L2;
     CHECK(std::abs(characteristic(modes.first.angular_frequency, m1, m2, L1, L2, k)) < 1e-10 * scale);
     CHECK(std::abs(characteristic(modes.second.angular_frequency, m1, m2, L1, L2, k)) < 1e-10 * scale);
     // and the radius of gyration must matter: the point-mass roots are not roots here
-    const auto point = plumb::linear_swing_modes(parameters(m1, m2, L1, L2, 0.0));
+    const auto point = linear_swing_modes(parameters(m1, m2, L1, L2, 0.0));
     CHECK(std::abs(characteristic(point.second.angular_frequency, m1, m2, L1, L2, k)) > 1e-3 * scale);
     CHECK(modes.first.angular_frequency < modes.second.angular_frequency);
 }
 
 TEST_CASE("mode shapes are eigenvectors of the linearized equations") {
     const double m1 = 600, m2 = 5000, L1 = 14, L2 = 2.5, k = 1.8;
-    const auto modes = plumb::linear_swing_modes(parameters(m1, m2, L1, L2, k));
+    const auto modes = linear_swing_modes(parameters(m1, m2, L1, L2, k));
     for (const auto* mode : {&modes.first, &modes.second}) {
         const double w2 = mode->angular_frequency * mode->angular_frequency;
         const double r = mode->load_per_hook_angle;
@@ -158,7 +158,7 @@ void check_free_swing_periods(double m1, double m2, double L1, double L2, double
                       (m2 * expected_fast * expected_fast * L2);
     std::vector<double> t, eta1, eta2;
     for (const auto& o : result.trace) {
-        const double q1 = o.hook_rope_angle, q2 = o.load_angle;
+        const double q1 = o.member(plumb::MemberId::hoist_rope).angle(), q2 = o.member(plumb::MemberId::rigging).angle();
         t.push_back(o.time);
         // v^T M q for v = [1, r]
         eta1.push_back((M11 * q1 + M12 * q2) + r1 * (M12 * q1 + M22 * q2));

@@ -58,15 +58,15 @@ TEST_CASE("a pendulum released from rest has the textbook rope tension") {
     // tolerance 1e-7 of m g: the load's share is ~1e-9, integrator error ~1e-8.
     double worst = 0;
     for (const auto& o : result.trace) {
-        const double expected = m * g0 * (3 * std::cos(o.hook_rope_angle) - 2 * std::cos(theta0));
-        worst = std::max(worst, std::abs(o.hoist_rope_tension - expected));
+        const double expected = m * g0 * (3 * std::cos(o.member(plumb::MemberId::hoist_rope).angle()) - 2 * std::cos(theta0));
+        worst = std::max(worst, std::abs(o.member(plumb::MemberId::hoist_rope).tension - expected));
     }
     CHECK(worst < 1e-7 * m * g0);
     // At the bottom m g (3 - 2 cos theta0), at the turning points m g cos theta0 [found]
-    CHECK_THAT(result.hoist_rope_tension.value, WithinRel(m * g0 * (3 - 2 * std::cos(theta0)), 1e-7));
-    CHECK_THAT(result.least_hoist_rope_tension.value, WithinRel(m * g0 * std::cos(theta0), 1e-7));
+    CHECK_THAT(result.peak[plumb::Quantity::hoist_rope_tension].value, WithinRel(m * g0 * (3 - 2 * std::cos(theta0)), 1e-7));
+    CHECK_THAT(result.least[plumb::Quantity::hoist_rope_tension].value, WithinRel(m * g0 * std::cos(theta0), 1e-7));
     // Energy conservation: the swing never exceeds the release angle [derived]
-    CHECK_THAT(result.hook_rope_angle.value, WithinAbs(theta0, 1e-8));
+    CHECK_THAT(result.peak[plumb::Quantity::hook_rope_angle].value, WithinAbs(theta0, 1e-8));
 }
 
 TEST_CASE("a large swing has the elliptic-integral period") {
@@ -77,7 +77,7 @@ TEST_CASE("a large swing has the elliptic-integral period") {
     std::vector<double> t, th;
     for (const auto& o : result.trace) {
         t.push_back(o.time);
-        th.push_back(o.hook_rope_angle);
+        th.push_back(o.member(plumb::MemberId::hoist_rope).angle());
     }
     const double measured = period_from_crossings(zero_crossings(t, th));
     // Landau & Lifshitz sec. 11 [memory], K from Boost.Math. Tolerance 1e-6
@@ -100,22 +100,22 @@ TEST_CASE("a step of support acceleration swings the pendulum to exactly twice a
     // Release at rest in the tilted effective gravity (g_eff at atan(a/g)):
     // peak exactly 2 atan(a/g) at half the exact period [derived]. The linear
     // answer 2a/g differs by 2.3e-3 rad, so 1e-7 rad separates them.
-    CHECK_THAT(result.hook_rope_angle.value, WithinAbs(2 * alpha, 1e-7));
+    CHECK_THAT(result.peak[plumb::Quantity::hook_rope_angle].value, WithinAbs(2 * alpha, 1e-7));
     // Peak time: the peak is flat, so its time is known to sqrt(value error);
     // 1e-3 s still separates the exact period from the linear one (0.04 s apart).
-    CHECK_THAT(result.hook_rope_angle.time, WithinAbs(period / 2, 1e-3));
+    CHECK_THAT(result.peak[plumb::Quantity::hook_rope_angle].time, WithinAbs(period / 2, 1e-3));
     // The load trails the support: the angle is negative (sign convention,
     // positive in the travel direction) and swings about -atan(a/g) [derived].
     double lowest = 0, highest = -1;
     for (const auto& o : result.trace) {
-        lowest = std::min(lowest, o.hook_rope_angle);
-        highest = std::max(highest, o.hook_rope_angle);
+        lowest = std::min(lowest, o.member(plumb::MemberId::hoist_rope).angle());
+        highest = std::max(highest, o.member(plumb::MemberId::hoist_rope).angle());
     }
     CHECK_THAT((lowest + highest) / 2, WithinAbs(-alpha, 1e-5));  // samples 10 ms apart near flat extremes
     CHECK(highest < 1e-6);
     // Tension peak at the bottom of the tilted swing: m (3 sqrt(g^2+a^2) - 2 g) [derived]
     const double m = bob_mass + tiny_load;
-    CHECK_THAT(result.hoist_rope_tension.value, WithinRel(m * (3 * g_eff - 2 * g0), 1e-7));
+    CHECK_THAT(result.peak[plumb::Quantity::hoist_rope_tension].value, WithinRel(m * (3 * g_eff - 2 * g0), 1e-7));
 }
 
 TEST_CASE("a small step of support acceleration follows (a/g)(1 - cos wt)") {
@@ -129,7 +129,7 @@ TEST_CASE("a small step of support acceleration follows (a/g)(1 - cos wt)") {
         // Linear pendulum under a step of support acceleration [derived];
         // negative: the load trails the support.
         const double expected = -(a / g0) * (1 - std::cos(w * o.time));
-        worst = std::max(worst, std::abs(o.hook_rope_angle - expected));
+        worst = std::max(worst, std::abs(o.member(plumb::MemberId::hoist_rope).angle() - expected));
     }
     // Amplitude a/g = 5.1e-3 rad. The linear formula itself errs by about
     // 3e-7 rad here (g_eff and amplitude corrections, estimated with an
@@ -157,7 +157,7 @@ TEST_CASE("residual swing after an acceleration pulse follows 2 (a/g)|sin(pi Ta/
         const double expected = 2 * (a / g0) * std::abs(std::sin(pi * ratio));  // Singer & Seering [derived]
         // Up to 0.0102 rad; the linear formula errs by up to 7e-7 rad at these
         // ratios (estimated with an independent scratch simulation); tolerance 2e-6 rad.
-        CHECK_THAT(result.residual_hook_rope_angle.value, WithinAbs(expected, 2e-6));
+        CHECK_THAT(result.residual[plumb::Quantity::hook_rope_angle].value, WithinAbs(expected, 2e-6));
     }
 }
 
@@ -180,9 +180,9 @@ TEST_CASE("accelerating and decelerating for whole exact periods leaves no resid
     const auto result = run(model, motion.end_of_motion() + 10.0, 0.0);
     // Expected 0 [derived]; tolerance 1e-6 rad: integrator error ~1e-8, the
     // load's share 1e-9; the linear-period design would give ~2e-4.
-    CHECK(result.residual_hook_rope_angle.value < 1e-6);
+    CHECK(result.residual[plumb::Quantity::hook_rope_angle].value < 1e-6);
     // The move itself did swing the pendulum (the test can fail the other way)
-    CHECK(result.hook_rope_angle.value > 0.09);
+    CHECK(result.peak[plumb::Quantity::hook_rope_angle].value > 0.09);
 }
 
 TEST_CASE("accelerating for half an exact period leaves a residual of exactly twice atan(a/g)") {
@@ -207,7 +207,7 @@ TEST_CASE("accelerating for half an exact period leaves a residual of exactly tw
     const auto result = run(model, motion.end_of_motion() + 8.0, 0.0);
     // 2 atan(a/g) = 0.1018834 rad; the linear 2a/g = 0.1019716 is 8.8e-5 away.
     // Tolerance 1e-6 rad (integrator error ~1e-8).
-    CHECK_THAT(result.residual_hook_rope_angle.value, WithinAbs(2 * alpha, 1e-6));
+    CHECK_THAT(result.residual[plumb::Quantity::hook_rope_angle].value, WithinAbs(2 * alpha, 1e-6));
 }
 
 namespace {
@@ -217,16 +217,16 @@ namespace {
 // support and, when a != 0, the uniform field (-a, -g) of the support's frame.
 double frame_energy(const plumb::RigidPendulumParameters& p, const plumb::Observation& o, double a) {
     const double L1 = p.rope_length, L2 = p.rigging_length;
-    const double v1x = L1 * o.hook_rope_rate * std::cos(o.hook_rope_angle);
-    const double v1z = L1 * o.hook_rope_rate * std::sin(o.hook_rope_angle);
-    const double v2x = v1x + L2 * o.load_rate * std::cos(o.load_angle);
-    const double v2z = v1z + L2 * o.load_rate * std::sin(o.load_angle);
+    const double v1x = L1 * o.member(plumb::MemberId::hoist_rope).angular_rate() * std::cos(o.member(plumb::MemberId::hoist_rope).angle());
+    const double v1z = L1 * o.member(plumb::MemberId::hoist_rope).angular_rate() * std::sin(o.member(plumb::MemberId::hoist_rope).angle());
+    const double v2x = v1x + L2 * o.member(plumb::MemberId::rigging).angular_rate() * std::cos(o.member(plumb::MemberId::rigging).angle());
+    const double v2z = v1z + L2 * o.member(plumb::MemberId::rigging).angular_rate() * std::sin(o.member(plumb::MemberId::rigging).angle());
     const double kinetic = 0.5 * p.hook_block_mass * (v1x * v1x + v1z * v1z) +
                            0.5 * p.load_mass * (v2x * v2x + v2z * v2z) +
                            0.5 * p.load_mass * p.radius_of_gyration * p.radius_of_gyration *
-                               o.load_rate * o.load_rate;
-    const double potential = p.hook_block_mass * (p.gravity * o.hook_z + a * o.hook_x) +
-                             p.load_mass * (p.gravity * o.load_z + a * o.load_x);
+                               o.member(plumb::MemberId::rigging).angular_rate() * o.member(plumb::MemberId::rigging).angular_rate();
+    const double potential = p.hook_block_mass * (p.gravity * o.hook_block.z() + a * o.hook_block.x()) +
+                             p.load_mass * (p.gravity * o.load_cg.z() + a * o.load_cg.x());
     return kinetic + potential;
 }
 
@@ -235,7 +235,7 @@ double frame_energy(const plumb::RigidPendulumParameters& p, const plumb::Observ
 TEST_CASE("with the support at rest the total energy is conserved over 100 periods") {
     const auto p = parameters(300, 2500, 8, 3, 1.0);
     const plumb::RigidPendulumModel model(p, support_at_rest(), deg(30), 0.0);
-    const double slow_period = plumb::linear_swing_modes(p).first.period;
+    const double slow_period = linear_swing_modes(p).first.period;
     const auto result = run(model, 100 * slow_period, 0.05);
     REQUIRE(result.trace.size() > 1000);
     // Swing energy: above the hanging rest state, E_rest = -(m1+m2) g L1 - m2 g L2.
@@ -271,7 +271,7 @@ TEST_CASE("under constant support acceleration the energy in the support's frame
     for (const auto& o : result.trace) drift = std::max(drift, std::abs(frame_energy(p, o, a) - e0));
     CHECK(drift < 1e-7 * swing);
     // The motion must have mattered: with a wrong sign or a missing a-term E' drifts by O(1)
-    CHECK(result.hook_rope_angle.value > deg(10));
+    CHECK(result.peak[plumb::Quantity::hook_rope_angle].value > deg(10));
 }
 
 TEST_CASE("observed hook and load positions follow the link geometry") {
@@ -283,15 +283,15 @@ TEST_CASE("observed hook and load positions follow the link geometry") {
     double worst = 0, offset_peak = 0;
     for (const auto& o : result.trace) {
         // docs/model.md section 2 [derived]; z up, relative to the support
-        const double hx = p.rope_length * std::sin(o.hook_rope_angle);
-        const double hz = -p.rope_length * std::cos(o.hook_rope_angle);
-        const double lx = hx + p.rigging_length * std::sin(o.load_angle);
-        const double lz = hz - p.rigging_length * std::cos(o.load_angle);
-        worst = std::max({worst, std::abs(o.hook_x - hx), std::abs(o.hook_z - hz),
-                          std::abs(o.load_x - lx), std::abs(o.load_z - lz)});
-        offset_peak = std::max(offset_peak, std::abs(o.load_x));
+        const double hx = p.rope_length * std::sin(o.member(plumb::MemberId::hoist_rope).angle());
+        const double hz = -p.rope_length * std::cos(o.member(plumb::MemberId::hoist_rope).angle());
+        const double lx = hx + p.rigging_length * std::sin(o.member(plumb::MemberId::rigging).angle());
+        const double lz = hz - p.rigging_length * std::cos(o.member(plumb::MemberId::rigging).angle());
+        worst = std::max({worst, std::abs(o.hook_block.x() - hx), std::abs(o.hook_block.z() - hz),
+                          std::abs(o.load_cg.x() - lx), std::abs(o.load_cg.z() - lz)});
+        offset_peak = std::max(offset_peak, std::abs(o.load_cg.x()));
     }
     CHECK(worst < 1e-12 * (p.rope_length + p.rigging_length));
     // The exact peak of |load offset| is at least every sampled value [derived]
-    CHECK(result.load_offset.value >= offset_peak - 1e-12);
+    CHECK(result.peak[plumb::Quantity::load_offset].value >= offset_peak - 1e-12);
 }

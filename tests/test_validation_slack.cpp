@@ -49,8 +49,8 @@ TEST_CASE("a pendulum whipped over the horizontal goes slack at the angle energy
     // Tolerance 1.5e-3 rad: the hook block lets the line kink slightly. The kink
     // shrinks as m1/m2 does (seen here: 2.9e-3 rad at 1e-3, 6.3e-4 at 1e-4,
     // 1.3e-4 at 1e-5), so the test checks the limit, not a fit.
-    CHECK(to_slack.trace.back().load_angle == Approx(slack_angle).margin(1.5e-3));
-    CHECK(to_slack.trace.back().hook_rope_angle == Approx(slack_angle).margin(1.5e-3));
+    CHECK(to_slack.trace.back().member(plumb::MemberId::rigging).angle() == Approx(slack_angle).margin(1.5e-3));
+    CHECK(to_slack.trace.back().member(plumb::MemberId::hoist_rope).angle() == Approx(slack_angle).margin(1.5e-3));
 }
 
 TEST_CASE("a slack rigging is a FAIL that says the rigid model ends there", "[slack]") {

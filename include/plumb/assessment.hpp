@@ -7,28 +7,33 @@
 #include <vector>
 
 #include "plumb/job.hpp"
+#include "plumb/model.hpp"
 #include "plumb/modes.hpp"
+#include "plumb/quantities.hpp"
 #include "plumb/simulation.hpp"
 #include "plumb/units.hpp"
 
 namespace plumb {
 
-// What the simulation predicts, in the trade's terms (SI units).
+// What the simulation predicts, in the trade's terms (SI units). Peaks and
+// static values are read by quantity (quantities.hpp).
 struct LiftPrediction {
-    SwingModes modes;
+    ModelDescription model;    // modes, static loads, assumptions (with the lift's rules), validity rule
     SimulationResult simulation;
     double end_of_motion = 0;  // s, when the last move ends
     double end_time = 0;       // s, end of the simulated free swing
-    double static_hoist_rope_tension = 0;  // N
-    double static_rigging_tension = 0;     // N
-    double peak_line_pull = 0;             // N, hoist rope tension per part of line
-    double sling_leg_factor = 0;           // leg tension per unit rigging tension
-    double static_sling_leg_tension = 0;   // N
-    double peak_sling_leg_tension = 0;     // N
-    double dynamic_factor = 0;             // peak over static hoist rope tension
-    double rigging_dynamic_factor = 0;     // peak over static rigging tension
+    int parts_of_line = 1;
+    double sling_leg_factor = 0;  // leg tension per unit rigging resultant
     std::optional<double> hoist_rope_slack_time;  // s, first time the hoist rope tension reaches zero
     std::optional<double> rigging_slack_time;     // s, first time the rigging tension reaches zero
+
+    LiftScales scales() const { return {parts_of_line, sling_leg_factor, model.static_loads}; }
+    // The peak of a simulated or derived quantity (a derived one at its base's time).
+    Peak peak(Quantity q) const;
+    std::optional<double> static_value(Quantity q) const;
+    // The time past which the predictions are not valid, by the model's
+    // validity rule; none when the whole run is valid. Decided here only.
+    std::optional<double> valid_until() const;
 };
 
 enum class Verdict { pass, caution, fail };
@@ -57,12 +62,18 @@ struct LiftAssessment {
 // Seconds of free swing after the last move when the job does not say.
 double automatic_duration_after(const SwingModes& modes);
 
+// The model's description with the assumptions of the lift arithmetic (line
+// pull, sling legs) added, as every output states them.
+ModelDescription describe_for_lift(const SwingModel& model);
+// The same for the model the job asks for.
+ModelDescription describe_lift_model(const Job& job);
+
 // Run the prediction. output_step > 0 keeps a time series on that grid.
-LiftPrediction predict_lift(const Job& job, const std::vector<WatchLevel>& watch,
+LiftPrediction predict_lift(const Job& job, const SwingModel& model, const std::vector<WatchLevel>& watch,
                             double output_step);
 
 // Levels whose first crossing the checks report, from the job's limits.
-std::vector<WatchLevel> watch_levels(const Job& job);
+std::vector<WatchLevel> watch_levels(const Job& job, const StaticLoads& static_loads);
 
 // Limits -> verdicts. Slack is always a FAIL.
 std::vector<CheckResult> run_checks(const Job& job, const LiftPrediction& prediction,

@@ -4,11 +4,18 @@
 #pragma once
 
 #include <cstddef>
+#include <memory>
+#include <optional>
 #include <span>
+#include <string>
 #include <vector>
 
 #include "plumb/job.hpp"
+#include "plumb/modes.hpp"
 #include "plumb/motion.hpp"
+#include "plumb/observation.hpp"
+#include "plumb/quantities.hpp"
+#include "plumb/system.hpp"
 
 namespace plumb {
 
@@ -24,32 +31,32 @@ public:
                              std::span<double> dxdt) const = 0;
 };
 
-// What the checks and outputs read at one instant, whatever model produced it.
-struct Observation {
-    double time = 0;
-    SupportState support;
-    double hook_rope_angle = 0;  // rad from vertical, positive in the travel direction
-    double hook_rope_rate = 0;   // rad/s
-    double load_angle = 0;       // rad, rigging (hook to load CG) from vertical
-    double load_rate = 0;        // rad/s
-    double hook_x = 0, hook_z = 0;  // m, hook block relative to the support (z up)
-    double load_x = 0, load_z = 0;  // m, load CG relative to the support (z up)
-    double hoist_rope_tension = 0;  // N, total over all parts of line
-    double rigging_tension = 0;     // N, force of the rigging on the load along the rigging (toward the hook)
-    double rigging_resultant = 0;   // N, magnitude of that force; above rigging_tension only for a
-                                    //    load with a radius of gyration, whose pin force has a side part
+// What ends the validity of a model's predictions, if anything.
+enum class ValidityRule {
+    always_valid,         // nothing in the run ends it (e.g. slack is a state the model handles)
+    slack_ends_validity,  // a member going slack ends it: the model cannot follow a slack rope
+};
+
+// What a model says about itself, before any run.
+struct ModelDescription {
+    std::string name;                 // as the outputs name it, e.g. "rigid model"
+    std::optional<SwingModes> modes;  // natural modes, where the model has them
+    StaticLoads static_loads;         // everything hanging at rest
+    std::vector<std::string> assumptions;  // as printed, one sentence each
+    ValidityRule validity = ValidityRule::always_valid;
 };
 
 class SwingModel : public SecondOrderSystem {
 public:
     virtual std::vector<double> initial_state() const = 0;
-    virtual Observation observe(double t, std::size_t interval, std::span<const double> x) const = 0;
+    virtual Observation observe(double t, const Regime& r, std::span<const double> x) const = 0;
     // Interval k of the integration is piece k of this motion.
     virtual const SupportMotion& motion() const = 0;
-    // Tensions with everything at rest: the reference for dynamic factors.
-    virtual double static_hoist_rope_tension() const = 0;
-    virtual double static_rigging_tension() const = 0;
+    virtual ModelDescription describe() const = 0;
 };
+
+// The one place that names a concrete model: the model a job asks for.
+std::unique_ptr<SwingModel> make_swing_model(const Job& job);
 
 // Planar two-link pendulum under the moving support, rigid massless hoist rope
 // and rigging, point-mass hook block, load a point mass or a rigid body with a
@@ -75,10 +82,9 @@ public:
     void derivatives(double t, std::size_t interval, std::span<const double> x,
                      std::span<double> dxdt) const override;
     std::vector<double> initial_state() const override;
-    Observation observe(double t, std::size_t interval, std::span<const double> x) const override;
+    Observation observe(double t, const Regime& r, std::span<const double> x) const override;
     const SupportMotion& motion() const override { return motion_; }
-    double static_hoist_rope_tension() const override;
-    double static_rigging_tension() const override;
+    ModelDescription describe() const override;
 
     const RigidPendulumParameters& parameters() const { return p_; }
 
@@ -87,6 +93,9 @@ public:
                                double omega1, double omega2, double& alpha1, double& alpha2) const;
 
 private:
+    // Natural modes of the linearized equations (docs/model.md, "Swing modes").
+    SwingModes linear_modes() const;
+
     RigidPendulumParameters p_;
     SupportMotion motion_;
     double initial_angle_, initial_rate_;

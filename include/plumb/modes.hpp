@@ -2,8 +2,6 @@
 // from the linearized equations of motion (closed form, docs/model.md).
 #pragma once
 
-#include "plumb/model.hpp"
-
 namespace plumb {
 
 struct SwingMode {
@@ -18,7 +16,5 @@ struct SwingModes {
     SwingMode first;   // the slower mode: the whole assembly swings as one pendulum
     SwingMode second;  // the faster mode: hook block and load swing against each other
 };
-
-SwingModes linear_swing_modes(const RigidPendulumParameters& p);
 
 }  // namespace plumb

@@ -1,5 +1,7 @@
 // Outputs: the terminal summary, JSON, CSV time series. Pure formatting: they
 // read a LiftAssessment and return text; files are written whole or not at all.
+// Units of the outputs: output_units.hpp; text layout: text_layout.hpp; what
+// several outputs state: report_facts.hpp.
 #pragma once
 
 #include <string>
@@ -7,18 +9,16 @@
 #include <vector>
 
 #include "plumb/assessment.hpp"
+#include "plumb/output_units.hpp"
 
 namespace plumb {
 
-enum class UnitSystem { si, us_customary };
-
 // The cautions every check output carries.
 const std::vector<std::string>& lift_cautions();
-// The assumptions of the rigid planar model, as printed.
-const std::vector<std::string>& model_assumptions();
 
 std::string format_summary(const LiftAssessment& a, UnitSystem units);
-std::string format_modes(const Job& job, const SwingModes& modes, UnitSystem units);
+// The modes, input and assumptions of a model (describe_lift_model()).
+std::string format_modes(const Job& job, const ModelDescription& model, UnitSystem units);
 std::string format_json(const LiftAssessment& a, UnitSystem units);
 std::string format_csv(const LiftAssessment& a, UnitSystem units);
 

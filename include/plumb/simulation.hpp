@@ -5,28 +5,20 @@
 #pragma once
 
 #include <functional>
+#include <memory>
 #include <optional>
 #include <vector>
 
 #include "plumb/integrator.hpp"
 #include "plumb/model.hpp"
+#include "plumb/quantities.hpp"
 
 namespace plumb {
-
-enum class Quantity {
-    hook_rope_angle,     // |theta1|
-    load_angle,          // |theta2|
-    load_offset,         // |horizontal offset of the load CG from the support|
-    hoist_rope_tension,  // total, signed (negative would mean compression: slack)
-    rigging_tension,     // signed, along the rigging
-    rigging_resultant,   // magnitude of the force between hook and rigging
-};
-
-double quantity_value(const Observation& o, Quantity q);
 
 struct Peak {
     double value = 0;
     double time = 0;
+    friend bool operator==(const Peak&, const Peak&) = default;
 };
 
 // Record the first time a quantity reaches a level (from below, or from above
@@ -44,19 +36,28 @@ struct SimulationRequest {
     std::vector<WatchLevel> watch;
 };
 
+// Records of the quantities of quantity_table(), by their Record bits.
 struct SimulationResult {
-    Peak hook_rope_angle, load_angle, load_offset;  // largest magnitudes
-    Peak hoist_rope_tension, rigging_tension, rigging_resultant;  // largest values
-    Peak least_hoist_rope_tension, least_rigging_tension;  // smallest values
-    // Largest magnitudes from the end of the last move to end_time.
+    PerQuantity<Peak> peak;   // largest values (magnitudes where the table says so)
+    PerQuantity<Peak> least;  // smallest values
+    // Largest values from the end of the last move to end_time.
     double residual_from = 0;
-    Peak residual_load_offset, residual_hook_rope_angle, residual_load_angle;
+    PerQuantity<Peak> residual;
     std::vector<std::optional<double>> first_crossing;  // one per WatchLevel
     std::vector<Observation> trace;
     IntegrationStats stats;
 };
 
+class SimulationWorkspace;
+
 SimulationResult simulate(const SwingModel& model, const SimulationRequest& request);
+
+// The same in a workspace kept by the caller, one per thread: the recorder's
+// buffers and the result are reused, so that after the first run a run
+// allocates nothing of its own. The result lives in the workspace until its
+// next run.
+const SimulationResult& simulate(const SwingModel& model, const SimulationRequest& request,
+                                 SimulationWorkspace& workspace);
 
 // The same with another integrator behind the same interface as integrate()
 // (the benchmark plugs in its baselines here).
@@ -65,5 +66,26 @@ using IntegrateFunction = std::function<IntegrationStats(const SecondOrderSystem
                                                          StepSink&)>;
 SimulationResult simulate(const SwingModel& model, const SimulationRequest& request,
                           const IntegrateFunction& integrator);
+
+// The recorder's buffers (samples, trackers, time series) and the last result.
+// Not shared between threads; the model is.
+class SimulationWorkspace {
+public:
+    SimulationWorkspace();
+    SimulationWorkspace(const SimulationWorkspace&) = delete;
+    SimulationWorkspace& operator=(const SimulationWorkspace&) = delete;
+    ~SimulationWorkspace();
+    const SimulationResult& result() const { return result_; }
+    // Move the last result out (its buffers are then built again on the next run).
+    SimulationResult release_result() { return std::move(result_); }
+    struct Buffers;  // defined with the recorder
+
+
+private:
+    friend const SimulationResult& run_simulation(const SwingModel&, const SimulationRequest&,
+                                                  const IntegrateFunction&, SimulationWorkspace&);
+    std::unique_ptr<Buffers> buffers_;
+    SimulationResult result_;
+};
 
 }  // namespace plumb

@@ -3,6 +3,7 @@
 // parser sees a unit string.
 #pragma once
 
+#include <numbers>
 #include <stdexcept>
 #include <string>
 #include <string_view>
@@ -26,6 +27,19 @@ enum class Dimension {
 // Standard gravity, exact by definition (CGPM 1901); used to turn a rated load
 // given as a mass (t, kg, lb) into a force.
 inline constexpr double standard_gravity = 9.80665;
+
+// The units other than SI that plumb reads and writes, in SI units. All exact
+// by definition:
+//   foot and inch: international yard and pound agreement, 1959 (1 ft = 0.3048 m, 1 in = 0.0254 m)
+//   pound (avoirdupois): same agreement, 1 lb = 0.45359237 kg
+//   pound-force: 1 lbf = 1 lb x standard gravity (9.80665 m/s^2, CGPM 1901), NIST SP 811
+//   degree: pi/180 rad
+// The parser multiplies by them, the outputs divide by them: one definition for both.
+inline constexpr double foot = 0.3048;                          // m
+inline constexpr double inch = 0.0254;                          // m
+inline constexpr double pound = 0.45359237;                     // kg
+inline constexpr double pound_force = pound * standard_gravity;  // N
+inline constexpr double degree = std::numbers::pi / 180.0;      // rad
 
 // Thrown by parse_quantity; the job-file parser adds the file, line and key.
 class UnitError : public std::runtime_error {

@@ -1,5 +1,5 @@
-// From a Job to verdicts. The model is built here and only here: the checks
-// read a LiftPrediction and never know which model produced it.
+// From a Job to verdicts. The model comes from the factory (make_swing_model);
+// the checks read a LiftPrediction and never know which model produced it.
 #include "plumb/assessment.hpp"
 
 #include <algorithm>
@@ -13,12 +13,6 @@
 
 namespace plumb {
 namespace {
-
-constexpr double degree = std::numbers::pi / 180;
-
-std::unique_ptr<SwingModel> make_swing_model(const Job& job) {
-    return std::make_unique<RigidPendulumModel>(RigidPendulumModel::from_job(job));
-}
 
 double sling_leg_factor(const Job& job) {
     return sling_leg_tension(1.0, job.rigging.legs_bearing, job.rigging.leg_angle_from_horizontal);
@@ -43,9 +37,8 @@ double sling_leg_limit(const Job& job) { return sling_share(job) * *job.rigging.
 WatchLevel sling_leg_watch(const Job& job) {
     return {Quantity::rigging_resultant, sling_leg_limit(job) / sling_leg_factor(job)};
 }
-double static_hook_load(const Job& job) { return (job.hook_block.mass + job.load.mass) * job.environment.gravity; }
-WatchLevel dynamic_factor_watch(const Job& job) {
-    return {Quantity::hoist_rope_tension, *job.limits.dynamic_factor * static_hook_load(job)};
+WatchLevel dynamic_factor_watch(const Job& job, const StaticLoads& static_loads) {
+    return {Quantity::hoist_rope_tension, *job.limits.dynamic_factor * static_loads.hoist_rope_tension};
 }
 
 std::optional<double> crossing_of(const std::vector<WatchLevel>& watch, const LiftPrediction& p,
@@ -87,11 +80,10 @@ CheckResult limit_check(const Job& job, std::string name, std::string descriptio
     return c;
 }
 
-// A rigid link can only pull. Where the equations ask it to push, the real rope
-// or sling goes slack and the load falls back into it: the model says nothing
-// reliable from then on.
-CheckResult taut_check(std::string name, std::string description, const Peak& least, double static_tension,
-                       std::optional<double> slack_time) {
+// A rope or sling can only pull. Where it goes slack the load falls back into
+// it; whether the model can follow that is its validity rule.
+CheckResult taut_check(const LiftPrediction& p, std::string name, std::string description, const Peak& least,
+                       double static_tension, std::optional<double> slack_time) {
     CheckResult c;
     c.name = std::move(name);
     c.description = std::move(description);
@@ -103,8 +95,10 @@ CheckResult taut_check(std::string name, std::string description, const Peak& le
     c.first_exceedance = slack_time;
     c.verdict = slack_time ? Verdict::fail : Verdict::pass;
     if (slack_time) {
-        c.note = "goes slack at t = " + format_time(*slack_time) +
-                 " s; the rigid model is not valid past that time (snatch loads are not predicted)";
+        c.note = "goes slack at t = " + format_time(*slack_time) + " s";
+        if (p.model.validity == ValidityRule::slack_ends_validity) {
+            c.note += "; the " + p.model.name + " is not valid past that time (snatch loads are not predicted)";
+        }
     }
     return c;
 }
@@ -113,7 +107,7 @@ CheckResult taut_check(std::string name, std::string description, const Peak& le
 
 double automatic_duration_after(const SwingModes& modes) { return std::max(20.0, 4 * modes.first.period); }
 
-std::vector<WatchLevel> watch_levels(const Job& job) {
+std::vector<WatchLevel> watch_levels(const Job& job, const StaticLoads& static_loads) {
     const Limits& l = job.limits;
     std::vector<WatchLevel> w;
     if (l.hook_rope_angle) w.push_back({Quantity::hook_rope_angle, *l.hook_rope_angle});
@@ -122,18 +116,48 @@ std::vector<WatchLevel> watch_levels(const Job& job) {
     w.push_back({Quantity::hoist_rope_tension, hoist_load_limit(job)});
     if (job.hoist.rope_wll) w.push_back(line_pull_watch(job));
     if (job.rigging.leg_wll) w.push_back(sling_leg_watch(job));
-    if (l.dynamic_factor) w.push_back(dynamic_factor_watch(job));
+    if (l.dynamic_factor) w.push_back(dynamic_factor_watch(job, static_loads));
     w.push_back(slack_watch(Quantity::hoist_rope_tension));
     w.push_back(slack_watch(Quantity::rigging_tension));
     return w;
 }
 
-LiftPrediction predict_lift(const Job& job, const std::vector<WatchLevel>& watch, double output_step) {
-    const std::unique_ptr<SwingModel> model = make_swing_model(job);
+Peak LiftPrediction::peak(Quantity q) const {
+    const QuantitySpec& spec = quantity_spec(q);
+    if (!is_derived(spec)) return simulation.peak[q];
+    const Peak base = peak(spec.base);
+    return {spec.derive(base.value, scales()), base.time};
+}
+
+std::optional<double> LiftPrediction::static_value(Quantity q) const { return plumb::static_value(q, scales()); }
+
+std::optional<double> LiftPrediction::valid_until() const {
+    if (model.validity != ValidityRule::slack_ends_validity) return std::nullopt;
+    std::optional<double> t = hoist_rope_slack_time;
+    if (rigging_slack_time && (!t || *rigging_slack_time < *t)) t = rigging_slack_time;
+    return t;
+}
+
+ModelDescription describe_for_lift(const SwingModel& model) {
+    ModelDescription d = model.describe();
+    d.assumptions.push_back(
+        "Sling leg tension comes from the rigging resultant by the leg rule W / (n sin beta): n "
+        "legs taken as bearing, beta the leg angle from the horizontal.");
+    d.assumptions.push_back(
+        "Line pull per part of line = total hoist rope tension / parts of line; sheave friction is "
+        "ignored.");
+    return d;
+}
+
+ModelDescription describe_lift_model(const Job& job) { return describe_for_lift(*make_swing_model(job)); }
+
+LiftPrediction predict_lift(const Job& job, const SwingModel& model, const std::vector<WatchLevel>& watch,
+                            double output_step) {
     LiftPrediction p;
-    p.modes = linear_swing_modes(RigidPendulumParameters::from_job(job));
-    p.end_of_motion = model->motion().end_of_motion();
-    p.end_time = p.end_of_motion + job.analysis.duration_after.value_or(automatic_duration_after(p.modes));
+    p.model = describe_for_lift(model);
+    p.end_of_motion = model.motion().end_of_motion();
+    const double automatic = p.model.modes ? automatic_duration_after(*p.model.modes) : automatic_duration_after({});
+    p.end_time = p.end_of_motion + job.analysis.duration_after.value_or(automatic);
 
     SimulationRequest request;
     request.end_time = p.end_time;
@@ -142,18 +166,10 @@ LiftPrediction predict_lift(const Job& job, const std::vector<WatchLevel>& watch
     request.integrator.absolute_tolerance = job.analysis.absolute_tolerance;
     request.output_step = output_step;
     request.watch = watch;
-    p.simulation = simulate(*model, request);
+    p.simulation = simulate(model, request);
 
-    p.static_hoist_rope_tension = model->static_hoist_rope_tension();
-    p.static_rigging_tension = model->static_rigging_tension();
-    p.peak_line_pull = p.simulation.hoist_rope_tension.value / job.hoist.parts_of_line;
+    p.parts_of_line = job.hoist.parts_of_line;
     p.sling_leg_factor = sling_leg_factor(job);
-    p.static_sling_leg_tension = p.static_rigging_tension * p.sling_leg_factor;
-    // The legs share the whole force between hook and rigging (conservative for a
-    // load with a radius of gyration, whose pin force leans off the rigging line).
-    p.peak_sling_leg_tension = p.simulation.rigging_resultant.value * p.sling_leg_factor;
-    p.dynamic_factor = p.simulation.hoist_rope_tension.value / p.static_hoist_rope_tension;
-    p.rigging_dynamic_factor = p.simulation.rigging_tension.value / p.static_rigging_tension;
     p.hoist_rope_slack_time = crossing_of(watch, p, slack_watch(Quantity::hoist_rope_tension));
     p.rigging_slack_time = crossing_of(watch, p, slack_watch(Quantity::rigging_tension));
     return p;
@@ -163,65 +179,69 @@ std::vector<CheckResult> run_checks(const Job& job, const LiftPrediction& p, con
     const Limits& l = job.limits;
     const SimulationResult& s = p.simulation;
     auto first_at = [&](const WatchLevel& level) { return crossing_of(watch, p, level); };
+    // A peak of the quantity table against a limit.
+    auto peak_check = [&](Quantity q, std::string name, std::string description, double limit,
+                          std::optional<double> first_exceedance) {
+        const Peak peak = p.peak(q);
+        return limit_check(job, std::move(name), std::move(description), quantity_spec(q).dimension, peak.value,
+                           peak.time, limit, first_exceedance);
+    };
     std::vector<CheckResult> checks;
     if (l.hook_rope_angle) {
-        checks.push_back(limit_check(job, "hook_rope_angle", "peak angle of the hoist rope from vertical",
-                                     Dimension::angle, s.hook_rope_angle.value, s.hook_rope_angle.time,
-                                     *l.hook_rope_angle, first_at({Quantity::hook_rope_angle, *l.hook_rope_angle})));
+        checks.push_back(peak_check(Quantity::hook_rope_angle, "hook_rope_angle", "peak angle of the hoist rope from vertical",
+                                    *l.hook_rope_angle, first_at({Quantity::hook_rope_angle, *l.hook_rope_angle})));
     }
     if (l.load_angle) {
-        checks.push_back(limit_check(job, "load_angle", "peak angle of the rigging (hook to load) from vertical",
-                                     Dimension::angle, s.load_angle.value, s.load_angle.time, *l.load_angle,
-                                     first_at({Quantity::load_angle, *l.load_angle})));
+        checks.push_back(peak_check(Quantity::load_angle, "load_angle", "peak angle of the rigging (hook to load) from vertical",
+                                    *l.load_angle, first_at({Quantity::load_angle, *l.load_angle})));
     }
     if (l.load_offset) {
-        checks.push_back(limit_check(job, "load_offset", "peak horizontal offset of the load from the support",
-                                     Dimension::length, s.load_offset.value, s.load_offset.time, *l.load_offset,
-                                     first_at({Quantity::load_offset, *l.load_offset})));
+        checks.push_back(peak_check(Quantity::load_offset, "load_offset", "peak horizontal offset of the load from the support",
+                                    *l.load_offset, first_at({Quantity::load_offset, *l.load_offset})));
     }
     if (l.residual_swing) {
+        const Peak& residual = s.residual[Quantity::load_offset];
         CheckResult c = limit_check(job, "residual_swing", "load offset amplitude after the last move ends",
-                                    Dimension::length, s.residual_load_offset.value, s.residual_load_offset.time,
-                                    *l.residual_swing, std::nullopt);
+                                    Dimension::length, residual.value, residual.time, *l.residual_swing, std::nullopt);
         c.note = "largest offset from t = " + format_time(s.residual_from) + " to " + format_time(p.end_time) + " s";
         checks.push_back(std::move(c));
     }
     {
         const double limit = hoist_load_limit(job);
-        CheckResult c = limit_check(job, "hoist_load", "peak hoist rope tension (all parts of line) against the rated load",
-                                    Dimension::force, s.hoist_rope_tension.value, s.hoist_rope_tension.time, limit,
-                                    first_at({Quantity::hoist_rope_tension, limit}));
+        CheckResult c = peak_check(Quantity::hoist_rope_tension, "hoist_load",
+                                   "peak hoist rope tension (all parts of line) against the rated load", limit,
+                                   first_at({Quantity::hoist_rope_tension, limit}));
         if (!l.rope_tension_share) c.note = "no rope_tension limit set: checked at 100 % of the rated load";
         checks.push_back(std::move(c));
     }
     if (job.hoist.rope_wll) {
-        checks.push_back(limit_check(job, "line_pull", "peak tension per part of line against the rope WLL",
-                                     Dimension::force, p.peak_line_pull, s.hoist_rope_tension.time,
-                                     line_pull_limit(job), first_at(line_pull_watch(job))));
+        checks.push_back(peak_check(Quantity::line_pull, "line_pull", "peak tension per part of line against the rope WLL",
+                                    line_pull_limit(job), first_at(line_pull_watch(job))));
     }
     if (job.rigging.leg_wll) {
-        checks.push_back(limit_check(job, "sling_leg_tension", "peak sling leg tension against the leg WLL",
-                                     Dimension::force, p.peak_sling_leg_tension, s.rigging_resultant.time,
-                                     sling_leg_limit(job), first_at(sling_leg_watch(job))));
+        checks.push_back(peak_check(Quantity::sling_leg_tension, "sling_leg_tension",
+                                    "peak sling leg tension against the leg WLL", sling_leg_limit(job),
+                                    first_at(sling_leg_watch(job))));
     }
     if (l.dynamic_factor) {
-        CheckResult c = limit_check(job, "dynamic_factor", "peak over static hoist rope tension", Dimension::ratio,
-                                    p.dynamic_factor, s.hoist_rope_tension.time, *l.dynamic_factor,
-                                    first_at(dynamic_factor_watch(job)));
+        CheckResult c = peak_check(Quantity::dynamic_factor, "dynamic_factor", "peak over static hoist rope tension",
+                                   *l.dynamic_factor, first_at(dynamic_factor_watch(job, p.model.static_loads)));
         // What a dynamic factor limit allows is the increment above 1: the
         // margin and the caution band are shares of that increment.
         if (*l.dynamic_factor > 1) {
-            const double used = (p.dynamic_factor - 1) / (*l.dynamic_factor - 1);
+            const double used = (c.value - 1) / (*l.dynamic_factor - 1);
             c.margin = 1 - used;
             c.verdict = judge(used, 1.0, l.caution_fraction);
             c.note = "margin and caution band apply to the increment above 1";
         }
         checks.push_back(std::move(c));
     }
-    checks.push_back(taut_check("hoist_rope_taut", "least hoist rope tension (must stay above zero)",
-                                s.least_hoist_rope_tension, p.static_hoist_rope_tension, p.hoist_rope_slack_time));
-    checks.push_back(taut_check("rigging_taut", "least rigging tension (must stay above zero)",
-                                s.least_rigging_tension, p.static_rigging_tension, p.rigging_slack_time));
+    checks.push_back(taut_check(p, "hoist_rope_taut", "least hoist rope tension (must stay above zero)",
+                                s.least[Quantity::hoist_rope_tension], p.model.static_loads.hoist_rope_tension,
+                                p.hoist_rope_slack_time));
+    checks.push_back(taut_check(p, "rigging_taut", "least rigging tension (must stay above zero)",
+                                s.least[Quantity::rigging_tension], p.model.static_loads.rigging_tension,
+                                p.rigging_slack_time));
     return checks;
 }
 
@@ -254,13 +274,14 @@ std::vector<std::string> input_notices(const Job& job, const LiftPrediction& p) 
                           std::to_string(job.rigging.legs_bearing) +
                           " legs bearing the load (a rigid or uneven load may hang on fewer legs)");
     }
-    if (p.static_hoist_rope_tension > job.hoist.rated_load) {
+    if (p.model.static_loads.hoist_rope_tension > job.hoist.rated_load) {
         notices.push_back("the static hook load (hook block, rigging and load) already exceeds the rated load");
     }
-    if (job.hoist.rope_minimum_breaking_load && p.peak_line_pull > 0) {
+    const double peak_line_pull = p.peak(Quantity::line_pull).value;
+    if (job.hoist.rope_minimum_breaking_load && peak_line_pull > 0) {
         std::ostringstream s;
         s.precision(2);
-        s << std::fixed << "rope design factor at the peak line pull: " << *job.hoist.rope_minimum_breaking_load / p.peak_line_pull
+        s << std::fixed << "rope design factor at the peak line pull: " << *job.hoist.rope_minimum_breaking_load / peak_line_pull
           << " (minimum breaking load over peak line pull); compare with the factor the crane manufacturer and your standard require";
         notices.push_back(s.str());
     }
@@ -276,8 +297,9 @@ std::vector<std::string> input_notices(const Job& job, const LiftPrediction& p) 
 LiftAssessment assess_lift(const Job& job, bool keep_time_series) {
     LiftAssessment a;
     a.job = job;
-    const std::vector<WatchLevel> watch = watch_levels(job);
-    a.prediction = predict_lift(job, watch, keep_time_series ? job.analysis.output_step : 0.0);
+    const std::unique_ptr<SwingModel> model = make_swing_model(job);
+    const std::vector<WatchLevel> watch = watch_levels(job, model->describe().static_loads);
+    a.prediction = predict_lift(job, *model, watch, keep_time_series ? job.analysis.output_step : 0.0);
     a.checks = run_checks(job, a.prediction, watch);
     a.overall = overall_verdict(a.checks);
     a.notices = input_notices(job, a.prediction);

@@ -15,7 +15,6 @@
 #include "plumb/assessment.hpp"
 #include "plumb/errors.hpp"
 #include "plumb/job_file.hpp"
-#include "plumb/modes.hpp"
 #include "plumb/report.hpp"
 
 #ifndef PLUMB_VERSION
@@ -93,9 +92,8 @@ int run_check(const Options& options) {
     for (const auto& [path, content] : files) std::cout << "Wrote " << path << "\n";
     std::cout << std::flush;
 
-    const bool slack = assessment.prediction.hoist_rope_slack_time.has_value() ||
-                       assessment.prediction.rigging_slack_time.has_value();
-    if (assessment.overall == plumb::Verdict::fail || slack) {
+    // A run that outlives its model's validity is never a pass.
+    if (assessment.overall == plumb::Verdict::fail || assessment.prediction.valid_until()) {
         return static_cast<int>(plumb::ExitStatus::check_failed);
     }
     return static_cast<int>(plumb::ExitStatus::all_checks_pass);
@@ -103,9 +101,7 @@ int run_check(const Options& options) {
 
 int run_modes(const Options& options) {
     const plumb::Job job = plumb::load_job_file(options.job_path);
-    const plumb::SwingModes modes =
-        plumb::linear_swing_modes(plumb::RigidPendulumParameters::from_job(job));
-    std::cout << plumb::format_modes(job, modes, options.units) << std::flush;
+    std::cout << plumb::format_modes(job, plumb::describe_lift_model(job), options.units) << std::flush;
     return 0;
 }
 

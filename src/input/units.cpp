@@ -14,18 +14,9 @@ namespace plumb {
 
 namespace {
 
-// Defining values (all exact by definition):
-//   foot and inch: international yard and pound agreement, 1959 (1 ft = 0.3048 m, 1 in = 0.0254 m)
-//   pound (avoirdupois): same agreement, 1 lb = 0.45359237 kg
-//   pound-force: 1 lbf = 1 lb x standard gravity (9.80665 m/s^2, CGPM 1901), NIST SP 811
+// Defining values: foot, inch, pound, pound_force and degree in units.hpp;
 //   kip: 1000 lbf
 //   tonne: 1 t = 1000 kg (SI brochure)
-//   degree: pi/180 rad
-constexpr double foot = 0.3048;
-constexpr double inch = 0.0254;
-constexpr double pound = 0.45359237;
-constexpr double pound_force = pound * standard_gravity;
-constexpr double degree = std::numbers::pi / 180.0;
 
 // value_in_si = value * multiply / divide. Decimal sub-multiples divide, so that
 // "12 mm" gives the double nearest 0.012 rather than 12 * (nearest double to 0.001).

@@ -1,5 +1,5 @@
 // Linearized swing modes: det(K - w^2 M) = 0 (docs/model.md, "Swing modes").
-#include "plumb/modes.hpp"
+#include "plumb/model.hpp"
 
 #include <Eigen/Dense>
 #include <cmath>
@@ -7,7 +7,8 @@
 
 namespace plumb {
 
-SwingModes linear_swing_modes(const RigidPendulumParameters& p) {
+SwingModes RigidPendulumModel::linear_modes() const {
+    const RigidPendulumParameters& p = p_;
     const double m1 = p.hook_block_mass, m2 = p.load_mass;
     const double L1 = p.rope_length, L2 = p.rigging_length, k = p.radius_of_gyration, g = p.gravity;
     Eigen::Matrix2d M;

@@ -77,28 +77,27 @@ void RigidPendulumModel::derivatives(double t, std::size_t interval, std::span<c
 
 // docs/model.md, "Tensions": Newton's second law for the load, then for the
 // hook block; the rope and rigging are massless two-force members.
-Observation RigidPendulumModel::observe(double t, std::size_t interval, std::span<const double> x) const {
+Observation RigidPendulumModel::observe(double t, const Regime& r, std::span<const double> x) const {
     const double L1 = p_.rope_length, L2 = p_.rigging_length, g = p_.gravity;
     const double th1 = x[0], th2 = x[1], w1 = x[2], w2 = x[3];
+    const SupportState support = motion_.at(t, r.interval);
     Observation o;
     o.time = t;
-    o.support = motion_.at(t, interval);
+    o.support = support_along_x(support, L1);
     const LinkTrig trig(th1, th2);
     double al1 = 0, al2 = 0;
-    solve_angular_accelerations(p_, o.support.acceleration, trig, w1, w2, al1, al2);
+    solve_angular_accelerations(p_, support.acceleration, trig, w1, w2, al1, al2);
 
     const double s1 = trig.s1, c1 = trig.c1, s2 = trig.s2, c2 = trig.c2;
-    o.hook_rope_angle = th1;
-    o.load_angle = th2;
-    o.hook_rope_rate = w1;
-    o.load_rate = w2;
-    o.hook_x = L1 * s1;
-    o.hook_z = -L1 * c1;
-    o.load_x = o.hook_x + L2 * s2;
-    o.load_z = o.hook_z - L2 * c2;
+    Member& rope = o.member(MemberId::hoist_rope);
+    Member& rigging = o.member(MemberId::rigging);
+    rope = Member::in_plane(L1, th1, s1, c1, w1);
+    rigging = Member::in_plane(L2, th2, s2, c2, w2);
+    o.hook_block = rope.vector();
+    o.load_cg = o.hook_block + rigging.vector();
 
     // Absolute accelerations of hook block (1) and load CG (2).
-    const double ax1 = o.support.acceleration + L1 * (al1 * c1 - w1 * w1 * s1);
+    const double ax1 = support.acceleration + L1 * (al1 * c1 - w1 * w1 * s1);
     const double az1 = L1 * (al1 * s1 + w1 * w1 * c1);
     const double ax2 = ax1 + L2 * (al2 * c2 - w2 * w2 * s2);
     const double az2 = az1 + L2 * (al2 * s2 + w2 * w2 * c2);
@@ -106,16 +105,32 @@ Observation RigidPendulumModel::observe(double t, std::size_t interval, std::spa
     // Force of the rigging on the load, and of the rope on the hook block.
     const double fx2 = p_.load_mass * ax2, fz2 = p_.load_mass * (az2 + g);
     const double fx1 = p_.hook_block_mass * ax1 + fx2, fz1 = p_.hook_block_mass * (az1 + g) + fz2;
-    o.rigging_tension = -fx2 * s2 + fz2 * c2;      // along the rigging, toward the hook
-    o.rigging_resultant = std::hypot(fx2, fz2);
-    o.hoist_rope_tension = -fx1 * s1 + fz1 * c1;   // along the rope, toward the support
+    rigging.tension = -fx2 * s2 + fz2 * c2;      // along the rigging, toward the hook
+    rigging.resultant = std::hypot(fx2, fz2);
+    rope.tension = -fx1 * s1 + fz1 * c1;         // along the rope, toward the support
+    rope.resultant = std::hypot(fx1, fz1);
     return o;
 }
 
-double RigidPendulumModel::static_hoist_rope_tension() const {
-    return (p_.hook_block_mass + p_.load_mass) * p_.gravity;
+ModelDescription RigidPendulumModel::describe() const {
+    ModelDescription d;
+    d.name = "rigid model";
+    d.modes = linear_modes();
+    d.static_loads.hoist_rope_tension = (p_.hook_block_mass + p_.load_mass) * p_.gravity;
+    d.static_loads.rigging_tension = p_.load_mass * p_.gravity;
+    d.assumptions = {
+        "Planar motion: the support travels along one axis and the hook block and load swing only "
+        "in the vertical plane of that axis.",
+        "The hoist rope and the rigging are rigid, massless and always taut; a slack rope or "
+        "rigging ends the validity of the model.",
+        "The hook block is a point mass at the end of the hoist rope.",
+        "The load is a point mass at its centre of gravity, or a rigid body with the given radius "
+        "of gyration swinging with the rigging.",
+        "No wind, no damping, no rope stretch and no hoisting or lowering during travel.",
+        "The drive follows the planned support motion exactly, whatever the swing.",
+    };
+    d.validity = ValidityRule::slack_ends_validity;
+    return d;
 }
-
-double RigidPendulumModel::static_rigging_tension() const { return p_.load_mass * p_.gravity; }
 
 }  // namespace plumb

@@ -10,18 +10,6 @@
 
 namespace plumb {
 
-double quantity_value(const Observation& o, Quantity q) {
-    switch (q) {
-        case Quantity::hook_rope_angle: return std::fabs(o.hook_rope_angle);
-        case Quantity::load_angle: return std::fabs(o.load_angle);
-        case Quantity::load_offset: return std::fabs(o.load_x);
-        case Quantity::hoist_rope_tension: return o.hoist_rope_tension;
-        case Quantity::rigging_tension: return o.rigging_tension;
-        case Quantity::rigging_resultant: return o.rigging_resultant;
-    }
-    return 0;
-}
-
 namespace {
 
 // Sample intervals per step; with the step sizes the error control picks, a
@@ -32,30 +20,50 @@ constexpr int samples_per_step = 4;
 struct ExtremeTracker {
     Quantity quantity;
     bool minimum = false;
-    Peak* out = nullptr;
+    PerQuantity<Peak> SimulationResult::*record = nullptr;  // which record of the result it fills
     bool seen = false;
 
     double score(double value) const { return minimum ? -value : value; }
 };
 
+// The trackers the quantity table asks for: whole run (peaks and least values)
+// and residual swing.
+void add_trackers(std::vector<ExtremeTracker>& whole_run, std::vector<ExtremeTracker>& residual) {
+    for (const QuantitySpec& q : quantity_table()) {
+        if (is_derived(q)) continue;  // derived from their base quantity's record
+        if (has_record(q, Record::peak)) whole_run.push_back({q.id, false, &SimulationResult::peak});
+        if (has_record(q, Record::least)) whole_run.push_back({q.id, true, &SimulationResult::least});
+        if (has_record(q, Record::residual)) residual.push_back({q.id, false, &SimulationResult::residual});
+    }
+}
+
+}  // namespace
+
+struct SimulationWorkspace::Buffers {
+    std::vector<ExtremeTracker> whole_run, residual;
+    std::vector<double> x, x0, breaks;
+    std::array<double, samples_per_step + 1> times{};
+    std::array<Observation, samples_per_step + 1> samples{};
+    Buffers() { add_trackers(whole_run, residual); }
+};
+
+SimulationWorkspace::SimulationWorkspace() : buffers_(std::make_unique<Buffers>()) {}
+SimulationWorkspace::~SimulationWorkspace() = default;
+
+namespace {
+
 class Recorder final : public StepSink {
 public:
+    using Buffers = SimulationWorkspace::Buffers;
+
     Recorder(const SwingModel& model, const SimulationRequest& request, double residual_from,
-             SimulationResult& result)
+             SimulationResult& result, Buffers& buffers)
         : model_(model), request_(request), residual_from_(residual_from), result_(result),
-          x_(2 * model.degrees_of_freedom()) {
-        auto track = [](Quantity q, Peak& p, bool minimum = false) { return ExtremeTracker{q, minimum, &p}; };
-        whole_run_ = {track(Quantity::hook_rope_angle, result.hook_rope_angle),
-                      track(Quantity::load_angle, result.load_angle),
-                      track(Quantity::load_offset, result.load_offset),
-                      track(Quantity::hoist_rope_tension, result.hoist_rope_tension),
-                      track(Quantity::rigging_tension, result.rigging_tension),
-                      track(Quantity::rigging_resultant, result.rigging_resultant),
-                      track(Quantity::hoist_rope_tension, result.least_hoist_rope_tension, true),
-                      track(Quantity::rigging_tension, result.least_rigging_tension, true)};
-        residual_ = {track(Quantity::load_offset, result.residual_load_offset),
-                     track(Quantity::hook_rope_angle, result.residual_hook_rope_angle),
-                     track(Quantity::load_angle, result.residual_load_angle)};
+          x_(buffers.x), times_(buffers.times), samples_(buffers.samples), whole_run_(buffers.whole_run),
+          residual_(buffers.residual) {
+        x_.resize(2 * model.degrees_of_freedom());
+        for (ExtremeTracker& t : whole_run_) t.seen = false;
+        for (ExtremeTracker& t : residual_) t.seen = false;
         result.first_crossing.assign(request.watch.size(), std::nullopt);
     }
 
@@ -86,7 +94,7 @@ public:
 private:
     Observation observe(double t) {
         step_->state_at(t, x_);
-        return model_.observe(t, step_->interval, x_);
+        return model_.observe(t, Regime{step_->interval}, x_);
     }
     double value_at(double t, Quantity q) { return quantity_value(observe(t), q); }
 
@@ -98,7 +106,8 @@ private:
         }
         const double sampled = score_at(best);
         Peak candidate{tracker.score(sampled), times_[best]};
-        const double so_far = tracker.seen ? tracker.score(tracker.out->value) : -std::numeric_limits<double>::infinity();
+        Peak& record = (result_.*tracker.record)[tracker.quantity];
+        const double so_far = tracker.seen ? tracker.score(record.value) : -std::numeric_limits<double>::infinity();
         // A parabola through the best sample and its neighbours estimates how far
         // the true extremum between samples rises above it. Refine (Brent's method
         // on the interpolant) only where that could beat the record; the margin
@@ -126,7 +135,7 @@ private:
             if (-f > sampled) candidate = {tracker.score(-f), t};
         }
         if (!tracker.seen || tracker.score(candidate.value) > so_far) {
-            *tracker.out = candidate;
+            record = candidate;
             tracker.seen = true;
         }
     }
@@ -162,28 +171,50 @@ private:
     const SimulationRequest& request_;
     double residual_from_;
     SimulationResult& result_;
-    std::vector<double> x_;
+    std::vector<double>& x_;
+    std::array<double, samples_per_step + 1>& times_;
+    std::array<Observation, samples_per_step + 1>& samples_;
+    std::vector<ExtremeTracker>& whole_run_;
+    std::vector<ExtremeTracker>& residual_;
     const DenseStep* step_ = nullptr;
     bool step_seen_ = false;
     std::size_t last_interval_ = 0;
-    std::array<double, samples_per_step + 1> times_{};
-    std::array<Observation, samples_per_step + 1> samples_{};
-    std::array<ExtremeTracker, 8> whole_run_{};
-    std::array<ExtremeTracker, 3> residual_{};
     long next_output_ = 0;
 };
 
 // Integration intervals: the motion's pieces, cut at the end time.
-std::vector<double> integration_breaks(const SupportMotion& motion, double end_time) {
-    std::vector<double> breaks;
+void integration_breaks(const SupportMotion& motion, double end_time, std::vector<double>& breaks) {
+    breaks.clear();
     for (const MotionPiece& piece : motion.pieces()) {
         if (piece.start < end_time) breaks.push_back(piece.start);
     }
     breaks.push_back(end_time);
-    return breaks;
 }
 
 }  // namespace
+
+const SimulationResult& run_simulation(const SwingModel& model, const SimulationRequest& request,
+                                       const IntegrateFunction& integrator, SimulationWorkspace& workspace) {
+    SimulationWorkspace::Buffers& buffers = *workspace.buffers_;
+    SimulationResult& result = workspace.result_;
+    result.peak = {};
+    result.least = {};
+    result.residual = {};
+    result.trace.clear();
+    result.stats = {};
+    result.residual_from = std::min(model.motion().end_of_motion(), request.end_time);
+    Recorder recorder(model, request, result.residual_from, result, buffers);
+    integration_breaks(model.motion(), request.end_time, buffers.breaks);
+    const std::vector<double> initial = model.initial_state();
+    buffers.x0.assign(initial.begin(), initial.end());
+    result.stats = integrator(model, buffers.x0, buffers.breaks, request.integrator, recorder);
+    return result;
+}
+
+const SimulationResult& simulate(const SwingModel& model, const SimulationRequest& request,
+                                 SimulationWorkspace& workspace) {
+    return run_simulation(model, request, integrate, workspace);
+}
 
 SimulationResult simulate(const SwingModel& model, const SimulationRequest& request) {
     return simulate(model, request, integrate);
@@ -191,13 +222,9 @@ SimulationResult simulate(const SwingModel& model, const SimulationRequest& requ
 
 SimulationResult simulate(const SwingModel& model, const SimulationRequest& request,
                           const IntegrateFunction& integrator) {
-    SimulationResult result;
-    result.residual_from = std::min(model.motion().end_of_motion(), request.end_time);
-    Recorder recorder(model, request, result.residual_from, result);
-    const std::vector<double> breaks = integration_breaks(model.motion(), request.end_time);
-    const std::vector<double> x0 = model.initial_state();
-    result.stats = integrator(model, x0, breaks, request.integrator, recorder);
-    return result;
+    SimulationWorkspace workspace;
+    run_simulation(model, request, integrator, workspace);
+    return workspace.release_result();
 }
 
 }  // namespace plumb

@@ -1,0 +1,117 @@
+// The one table of reported quantities. Each quantity is declared once: its
+// key, its words, its dimension, how it is read from an Observation (or
+// derived from another quantity), and which records the simulation and the
+// outputs keep of it. The simulation, the checks, the summary, the JSON and
+// the CSV iterate this table; results are arrays indexed by Quantity.
+//
+// Adding a quantity: one entry in quantity_table() (src/simulation/quantities.cpp),
+// in the order the outputs list it, plus whatever the models' observe() must fill.
+#pragma once
+
+#include <array>
+#include <cstddef>
+#include <optional>
+#include <span>
+
+#include "plumb/observation.hpp"
+#include "plumb/units.hpp"
+
+namespace plumb {
+
+// In table order, which is the order of the CSV columns and of the summary.
+enum class Quantity : std::size_t {
+    support_position,
+    support_speed,
+    support_acceleration,
+    hook_rope_angle,
+    hook_rope_rate,
+    load_angle,
+    load_rate,
+    hook_x,
+    hook_z,
+    load_x,
+    load_z,
+    load_offset,
+    hoist_rope_tension,
+    line_pull,
+    rigging_tension,
+    rigging_resultant,
+    sling_leg_tension,
+    dynamic_factor,
+    rigging_dynamic_factor,
+};
+inline constexpr std::size_t quantity_count = 19;
+
+constexpr std::size_t index_of(Quantity q) { return static_cast<std::size_t>(q); }
+
+// What is kept of a quantity (a bit set).
+enum Record : unsigned {
+    series = 1u << 0,    // a column of the CSV time series
+    peak = 1u << 1,      // the largest value over the run, and when
+    least = 1u << 2,     // the smallest value over the run, and when
+    residual = 1u << 3,  // the largest value after the last move
+    crossing = 1u << 4,  // first times a watched level is reached
+};
+
+// Tensions with everything hanging at rest: the reference of dynamic factors.
+struct StaticLoads {
+    double hoist_rope_tension = 0;  // N, total over all parts of line
+    double rigging_tension = 0;     // N
+};
+
+// The numbers of a lift that turn a simulated quantity into a derived one
+// (line pull, sling leg tension, dynamic factors).
+struct LiftScales {
+    int parts_of_line = 1;
+    double sling_leg_factor = 0;  // leg tension per unit rigging resultant
+    StaticLoads static_loads;
+};
+
+// Which static load a simulated quantity is measured against, if any.
+enum class StaticReference { none, hoist_rope_tension, rigging_tension };
+
+struct QuantitySpec {
+    Quantity id;
+    const char* key;             // JSON key, CSV column name
+    const char* words;           // the summary's peaks table (quantities with a peak)
+    const char* residual_words;  // the summary's residual section (quantities with a residual)
+    Dimension dimension;
+    unsigned records;            // Record bits
+    // A simulated quantity is read from an observation (signed, as in the CSV);
+    // with magnitude set its records track |value|.
+    double (*read)(const Observation&);
+    bool magnitude;
+    // A derived quantity is computed from another one, value by value (the
+    // record keeps the base quantity's time); read is then null.
+    Quantity base;
+    double (*derive)(double base_value, const LiftScales&);
+    StaticReference static_reference;  // simulated quantities only; derived ones derive it
+    bool static_in_json;               // the JSON lists "static_<key>"
+    int residual_rank;                 // order in the residual section and JSON
+};
+
+// The whole table, in the order of index_of(Quantity).
+std::span<const QuantitySpec> quantity_table();
+const QuantitySpec& quantity_spec(Quantity q);
+
+inline bool has_record(const QuantitySpec& s, Record r) { return (s.records & r) != 0; }
+inline bool is_derived(const QuantitySpec& s) { return s.read == nullptr; }
+
+// The value the records track: the read value, or its magnitude. Only for
+// simulated (not derived) quantities.
+double quantity_value(const Observation& o, Quantity q);
+// The value as the CSV prints it: signed, derived ones from their base.
+double series_value(const Observation& o, Quantity q, const LiftScales& scales);
+// The static value of a quantity, if it has one.
+std::optional<double> static_value(Quantity q, const LiftScales& scales);
+
+// One value per quantity, indexed by Quantity.
+template <class T>
+struct PerQuantity {
+    std::array<T, quantity_count> values{};
+    T& operator[](Quantity q) { return values[index_of(q)]; }
+    const T& operator[](Quantity q) const { return values[index_of(q)]; }
+    friend bool operator==(const PerQuantity&, const PerQuantity&) = default;
+};
+
+}  // namespace plumb

@@ -1,0 +1,48 @@
+// What more than one output states: the digest of the motion,
+// the limits not given, slack and the model's validity, the verdict in words,
+// and the swing modes in words.
+#pragma once
+
+#include <cstddef>
+#include <span>
+#include <string>
+#include <vector>
+
+#include "plumb/assessment.hpp"
+#include "plumb/report.hpp"  // lift_cautions()
+
+namespace plumb {
+
+const char* integrator_name(IntegratorMethod m);
+
+// Facts derived from the job's motion for the digest.
+struct MotionDigest {
+    bool from_history = false;
+    std::size_t count = 0;         // moves, or rows of the speed history
+    double total_travel = 0;       // m, distance covered whatever the direction
+    double net_travel = 0;         // m, signed end position
+    double peak_speed = 0;         // m/s
+    double peak_acceleration = 0;  // m/s^2
+};
+MotionDigest digest_motion(const SupportMotionSpec& spec);
+
+// The limits a job may give: JSON key, words for the summary, unit.
+struct LimitRow {
+    const char* key;
+    const char* words;
+    std::optional<double> Limits::*member;
+    Dimension dimension;
+};
+std::span<const LimitRow> limit_rows();
+// Limits the job does not give, in words, so a reader sees what was not checked.
+std::vector<std::string> limits_not_given(const Limits& l);
+
+// One sentence per member that goes slack, with what that means for the model.
+std::vector<std::string> slack_statements(const LiftPrediction& p);
+
+std::string verdict_explanation(const LiftAssessment& a);
+
+std::string mode_shape_words(double load_per_hook_angle);
+double frequency_hz(const SwingMode& m);
+
+}  // namespace plumb

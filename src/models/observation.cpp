@@ -1,0 +1,40 @@
+// Members and support kinematics of an Observation (observation.hpp).
+#include "plumb/observation.hpp"
+
+namespace plumb {
+
+Member Member::in_plane(double length, double angle, double sin_angle, double cos_angle,
+                        double angular_rate) {
+    Member m;
+    m.vector_ = {length * sin_angle, 0.0, -length * cos_angle};
+    m.angle_ = angle;
+    m.angular_rate_ = angular_rate;
+    return m;
+}
+
+// With rho the horizontal length and z the (negative) height of the vector,
+// the angle from the vertical is atan2(rho, -z); its rate follows by the chain
+// rule: (rho' (-z) + rho z') / (rho^2 + z^2).
+Member Member::along(const Eigen::Vector3d& vector, const Eigen::Vector3d& velocity) {
+    Member m;
+    m.vector_ = vector;
+    const double rho = std::hypot(vector.x(), vector.y());
+    const double sign = std::signbit(vector.x()) ? -1.0 : 1.0;
+    m.angle_ = sign * std::atan2(rho, -vector.z());
+    const double rho_rate = rho > 0 ? (vector.x() * velocity.x() + vector.y() * velocity.y()) / rho : 0.0;
+    const double squared_length = vector.squaredNorm();
+    m.angular_rate_ =
+        squared_length > 0 ? sign * (rho_rate * -vector.z() + rho * velocity.z()) / squared_length : 0.0;
+    return m;
+}
+
+SupportKinematics support_along_x(const SupportState& s, double rope_length) {
+    SupportKinematics k;
+    k.position.x() = s.position;
+    k.velocity.x() = s.speed;
+    k.acceleration.x() = s.acceleration;
+    k.rope_length = rope_length;
+    return k;
+}
+
+}  // namespace plumb

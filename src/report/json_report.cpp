@@ -1,0 +1,192 @@
+// The JSON document of a lift check.
+#include <optional>
+#include <string>
+
+#include <nlohmann/json.hpp>
+
+#include "plumb/report.hpp"
+#include "plumb/report_facts.hpp"
+
+namespace plumb {
+
+namespace {
+
+using nlohmann::json;
+
+// JSON pieces.
+
+json quantity_json(double si, Dimension d, UnitSystem u) {
+    return {{"value", shown_value(si, d, u)}, {"unit", json_unit(d, u)}};
+}
+
+json optional_quantity_json(const std::optional<double>& si, Dimension d, UnitSystem u) {
+    return si ? quantity_json(*si, d, u) : json(nullptr);
+}
+
+json peak_json(const Peak& p, Dimension d, UnitSystem u) {
+    return {{"value", shown_value(p.value, d, u)}, {"unit", json_unit(d, u)}, {"time", p.time}};
+}
+
+json optional_time(const std::optional<double>& t) { return t ? json(*t) : json(nullptr); }
+
+json seconds_json(double t) { return quantity_json(t, Dimension::time, UnitSystem::si); }
+
+json limits_json(const Limits& l, UnitSystem u) {
+    json out = json::object();
+    for (const LimitRow& row : limit_rows()) {
+        out[row.key] = optional_quantity_json(l.*row.member, row.dimension, u);
+    }
+    out["caution_fraction"] = quantity_json(l.caution_fraction, Dimension::ratio, u);
+    return out;
+}
+
+json job_json(const LiftAssessment& a, UnitSystem u) {
+    const Job& job = a.job;
+    const MotionDigest m = digest_motion(job.motion);
+    json motion = {
+        {"kind", m.from_history ? "speed_history" : "moves"},
+        {m.from_history ? "speed_history_rows" : "moves", m.count},
+        {"total_travel", quantity_json(m.total_travel, Dimension::length, u)},
+        {"end_position", quantity_json(m.net_travel, Dimension::length, u)},
+        {"peak_speed", quantity_json(m.peak_speed, Dimension::speed, u)},
+        {"peak_acceleration", quantity_json(m.peak_acceleration, Dimension::acceleration, u)},
+        {"end_of_motion", seconds_json(a.prediction.end_of_motion)},
+    };
+    if (m.from_history) motion["speed_history_file"] = job.motion.speed_history_file;
+    return {
+        {"title", job.title},
+        {"reference", job.reference},
+        {"source_file", job.source_file},
+        {"motion", motion},
+        {"hoist",
+         {{"rope_length", quantity_json(job.hoist.rope_length, Dimension::length, u)},
+          {"parts_of_line", job.hoist.parts_of_line},
+          {"rated_load", quantity_json(job.hoist.rated_load, Dimension::load, u)},
+          {"rope_wll_per_line", optional_quantity_json(job.hoist.rope_wll, Dimension::force, u)},
+          {"rope_minimum_breaking_load_per_line",
+           optional_quantity_json(job.hoist.rope_minimum_breaking_load, Dimension::force, u)}}},
+        {"hook_block", {{"mass", quantity_json(job.hook_block.mass, Dimension::mass, u)}}},
+        {"rigging",
+         {{"length", quantity_json(job.rigging.length, Dimension::length, u)},
+          {"legs", job.rigging.legs},
+          {"legs_bearing", job.rigging.legs_bearing},
+          {"leg_angle_from_horizontal",
+           quantity_json(job.rigging.leg_angle_from_horizontal, Dimension::angle, u)},
+          {"leg_wll", optional_quantity_json(job.rigging.leg_wll, Dimension::force, u)}}},
+        {"load",
+         {{"mass", quantity_json(job.load.mass, Dimension::mass, u)},
+          {"radius_of_gyration", quantity_json(job.load.radius_of_gyration, Dimension::length, u)},
+          {"initial_angle", quantity_json(job.load.initial_angle, Dimension::angle, u)},
+          {"initial_rate", quantity_json(job.load.initial_rate, Dimension::angular_rate, u)}}},
+        {"environment", {{"gravity", quantity_json(job.environment.gravity, Dimension::acceleration, u)}}},
+        {"limits", limits_json(job.limits, u)},
+        {"analysis",
+         {{"duration_after", job.analysis.duration_after ? seconds_json(*job.analysis.duration_after)
+                                                         : json(nullptr)},
+          {"output_step", seconds_json(job.analysis.output_step)},
+          {"relative_tolerance", job.analysis.relative_tolerance},
+          {"absolute_tolerance", job.analysis.absolute_tolerance},
+          {"integrator", integrator_name(job.analysis.integrator)}}},
+    };
+}
+
+json mode_json(const SwingMode& m) {
+    return {{"period", seconds_json(m.period)},
+            {"frequency", {{"value", frequency_hz(m)}, {"unit", "Hz"}}},
+            {"angular_frequency", {{"value", m.angular_frequency}, {"unit", "rad/s"}}},
+            {"load_per_hook_angle", {{"value", m.load_per_hook_angle}, {"unit", "ratio"}}},
+            {"shape", mode_shape_words(m.load_per_hook_angle)}};
+}
+
+json modes_json(const SwingModes& modes) {
+    return {{"first", mode_json(modes.first)}, {"second", mode_json(modes.second)}};
+}
+
+json units_json(UnitSystem u) {
+    return {{"time", "s"},
+            {"length", json_unit(Dimension::length, u)},
+            {"mass", json_unit(Dimension::mass, u)},
+            {"force", json_unit(Dimension::force, u)},
+            {"speed", json_unit(Dimension::speed, u)},
+            {"acceleration", json_unit(Dimension::acceleration, u)},
+            {"angle", json_unit(Dimension::angle, u)},
+            {"angular_rate", json_unit(Dimension::angular_rate, u)}};
+}
+
+
+}  // namespace
+
+std::string format_json(const LiftAssessment& a, UnitSystem u) {
+    const LiftPrediction& p = a.prediction;
+    const SimulationResult& s = p.simulation;
+
+    json peaks = json::object();
+    for (const QuantitySpec& q : quantity_table()) {
+        if (!has_record(q, Record::peak)) continue;
+        peaks[q.key] = peak_json(p.peak(q.id), q.dimension, u);
+        if (has_record(q, Record::least)) {
+            peaks[std::string("least_") + q.key] = peak_json(s.least[q.id], q.dimension, u);
+        }
+        if (q.static_in_json) {
+            peaks[std::string("static_") + q.key] = quantity_json(*p.static_value(q.id), q.dimension, u);
+        }
+    }
+    peaks["sling_leg_factor"] = quantity_json(p.sling_leg_factor, Dimension::ratio, u);
+
+    json residual = {{"from", s.residual_from}, {"to", p.end_time}};
+    for (const QuantitySpec& q : quantity_table()) {
+        if (has_record(q, Record::residual)) residual[q.key] = peak_json(s.residual[q.id], q.dimension, u);
+    }
+
+    json checks = json::array();
+    for (const CheckResult& c : a.checks) {
+        checks.push_back({
+            {"name", c.name},
+            {"description", c.description},
+            {"value", shown_value(c.value, c.dimension, u)},
+            {"limit", shown_value(c.limit, c.dimension, u)},
+            {"unit", json_unit(c.dimension, u)},
+            {"margin", c.margin * 100.0},
+            {"margin_unit", "%"},
+            {"value_time", c.value_time},
+            {"first_exceedance", optional_time(c.first_exceedance)},
+            {"verdict", verdict_word(c.verdict)},
+            {"note", c.note},
+        });
+    }
+
+    const IntegrationStats& st = s.stats;
+    json doc = {
+        {"program", "plumb"},
+        {"output", "lift check"},
+        {"unit_system", unit_system_key(u)},
+        {"units", units_json(u)},
+        {"job", job_json(a, u)},
+        {"modes", p.model.modes ? modes_json(*p.model.modes) : json(nullptr)},
+        {"simulated_until", p.end_time},
+        {"end_of_motion", p.end_of_motion},
+        {"hoist_rope_slack_time", optional_time(p.hoist_rope_slack_time)},
+        {"rigging_slack_time", optional_time(p.rigging_slack_time)},
+        {"model_valid_until", optional_time(p.valid_until())},
+        {"slack", slack_statements(p)},
+        {"peaks", peaks},
+        {"residual", residual},
+        {"checks", checks},
+        {"limits_not_given", limits_not_given(a.job.limits)},
+        {"overall_verdict", verdict_word(a.overall)},
+        {"overall_explanation", verdict_explanation(a)},
+        {"notices", a.notices},
+        {"cautions", lift_cautions()},
+        {"assumptions", p.model.assumptions},
+        {"statistics",
+         {{"integrator", integrator_name(a.job.analysis.integrator)},
+          {"steps", st.steps},
+          {"rejected_steps", st.rejected_steps},
+          {"rhs_evaluations", st.rhs_evaluations},
+          {"restarts", st.restarts},
+          {"trace_rows", s.trace.size()}}},
+    };
+    return doc.dump(2) + "\n";
+}
+
+}  // namespace plumb

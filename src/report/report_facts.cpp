@@ -1,0 +1,129 @@
+// What more than one output states (report_facts.hpp).
+#include "plumb/report_facts.hpp"
+
+#include <cmath>
+#include <numbers>
+
+#include "plumb/motion.hpp"
+#include "plumb/text_layout.hpp"
+
+namespace plumb {
+
+using text::percent;
+using text::seconds;
+
+const std::vector<std::string>& lift_cautions() {
+    static const std::vector<std::string> cautions = {
+        "plumb is a planning aid, not a substitute for the crane manufacturer's load charts, duty "
+        "charts and instructions: verify every lift against them.",
+        "Local regulations and the lift plan's competent or appointed person govern; results must "
+        "be reviewed by a competent person before the lift.",
+        "Results hold only for the inputs given and the model stated below; a PASS is not "
+        "permission to lift. Wind, ground conditions, crane deflection, operator technique and "
+        "the condition of the rope and rigging are not assessed.",
+    };
+    return cautions;
+}
+
+const char* integrator_name(IntegratorMethod m) {
+    switch (m) {
+        case IntegratorMethod::runge_kutta: return "runge_kutta";
+        case IntegratorMethod::cvode_adams: return "cvode_adams";
+        case IntegratorMethod::cvode_bdf: return "cvode_bdf";
+    }
+    return "unknown";
+}
+
+namespace {
+
+// Distance covered between two samples of a speed linear in time, counting
+// travel backwards as distance too.
+double travel_between(double dt, double v0, double v1) {
+    if ((v0 >= 0) == (v1 >= 0)) return std::abs(0.5 * (v0 + v1) * dt);
+    // The speed passes through zero inside the interval: two triangles.
+    return 0.5 * dt * (v0 * v0 + v1 * v1) / (std::abs(v0) + std::abs(v1));
+}
+
+constexpr LimitRow limit_table[] = {
+    {"hook_rope_angle", "hook rope angle", &Limits::hook_rope_angle, Dimension::angle},
+    {"load_angle", "load angle", &Limits::load_angle, Dimension::angle},
+    {"load_offset", "load offset", &Limits::load_offset, Dimension::length},
+    {"residual_swing", "residual swing", &Limits::residual_swing, Dimension::length},
+    {"rope_tension_share", "rope tension share", &Limits::rope_tension_share, Dimension::ratio},
+    {"sling_leg_share", "sling leg share", &Limits::sling_leg_share, Dimension::ratio},
+    {"dynamic_factor", "dynamic factor", &Limits::dynamic_factor, Dimension::ratio},
+};
+
+std::string slack_statement(const LiftPrediction& p, const char* what, double t) {
+    std::string s = std::string("The ") + what + " goes slack (tension reaches zero) at t = " + seconds(t);
+    if (p.model.validity == ValidityRule::slack_ends_validity) {
+        return s + ": the " + p.model.name + " is not valid past t = " + seconds(t) +
+               ". Values after that time are not predictions; the lift as planned must be changed.";
+    }
+    return s + ".";
+}
+
+}  // namespace
+
+MotionDigest digest_motion(const SupportMotionSpec& spec) {
+    MotionDigest d;
+    d.from_history = spec.moves.empty();
+    if (d.from_history) {
+        d.count = spec.speed_history.size();
+        for (std::size_t i = 1; i < spec.speed_history.size(); ++i) {
+            const SpeedSample& a = spec.speed_history[i - 1];
+            const SpeedSample& b = spec.speed_history[i];
+            d.total_travel += travel_between(b.time - a.time, a.speed, b.speed);
+        }
+    } else {
+        d.count = spec.moves.size();
+        for (const Move& m : spec.moves) d.total_travel += std::abs(m.distance);
+    }
+    const SupportMotion motion = SupportMotion::from_spec(spec);
+    d.net_travel = motion.final_position();
+    d.peak_speed = motion.peak_speed();
+    d.peak_acceleration = motion.peak_acceleration();
+    return d;
+}
+
+std::span<const LimitRow> limit_rows() { return limit_table; }
+
+std::vector<std::string> limits_not_given(const Limits& l) {
+    std::vector<std::string> out;
+    for (const LimitRow& row : limit_table) {
+        if (!(l.*row.member)) out.push_back(row.words);
+    }
+    return out;
+}
+
+std::vector<std::string> slack_statements(const LiftPrediction& p) {
+    std::vector<std::string> out;
+    if (p.hoist_rope_slack_time) out.push_back(slack_statement(p, "hoist rope", *p.hoist_rope_slack_time));
+    if (p.rigging_slack_time) out.push_back(slack_statement(p, "rigging", *p.rigging_slack_time));
+    return out;
+}
+
+std::string verdict_explanation(const LiftAssessment& a) {
+    switch (a.overall) {
+        case Verdict::pass:
+            return "every check is within its limit (read the cautions below).";
+        case Verdict::caution:
+            return "no limit is exceeded, but at least one value is above " +
+                   percent(a.job.limits.caution_fraction) +
+                   " of its limit. Review the marked checks with the competent person before the "
+                   "lift.";
+        case Verdict::fail:
+            return "at least one check fails: the lift as planned does not meet its limits.";
+    }
+    return "";
+}
+
+std::string mode_shape_words(double load_per_hook_angle) {
+    if (load_per_hook_angle > 0) return "hook block and load swing together";
+    if (load_per_hook_angle < 0) return "hook block and load swing against each other";
+    return "load does not swing";
+}
+
+double frequency_hz(const SwingMode& m) { return m.angular_frequency / (2.0 * std::numbers::pi); }
+
+}  // namespace plumb

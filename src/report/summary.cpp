@@ -1,0 +1,302 @@
+// The terminal summary of a lift check and the output of `plumb modes`.
+#include <algorithm>
+#include <optional>
+#include <string>
+#include <vector>
+
+#include "plumb/report.hpp"
+#include "plumb/report_facts.hpp"
+#include "plumb/text_layout.hpp"
+
+namespace plumb {
+
+using namespace text;
+
+namespace {
+
+// A time in the tables, marked when it lies past the validity of the model.
+constexpr const char* past_validity_mark = " (!)";
+
+std::string when(double t, const LiftPrediction& p) {
+    const std::optional<double> valid_until = p.valid_until();
+    return seconds(t) + (valid_until && t > *valid_until ? past_validity_mark : "");
+}
+
+std::string past_validity_note(const LiftPrediction& p) {
+    const std::optional<double> valid_until = p.valid_until();
+    if (!valid_until) return "";
+    return wrap(std::string(past_validity_mark).substr(1) + " marks a time after t = " +
+                    seconds(*valid_until) +
+                    ", past which the " + p.model.name + " is not valid: the value there is not a prediction.",
+                "  ", "  ");
+}
+
+std::string verdict_banner(const LiftAssessment& a) {
+    std::string line = std::string("OVERALL VERDICT: ") + verdict_word(a.overall);
+    if (a.overall == Verdict::caution) line = "*** " + line + " ***";
+    if (a.overall == Verdict::fail) line = "!!! " + line + " !!!";
+    std::string out = std::string(78, '=') + "\n";
+    out += line + "\n";
+    out += wrap(verdict_explanation(a), "", "");
+    if (a.checks.empty()) {
+        out += wrap("No checks were run: the job gives no limits, so nothing was checked against "
+                    "a limit.", "", "");
+    }
+    out += std::string(78, '=') + "\n";
+    return out;
+}
+
+std::string modes_table(const std::optional<SwingModes>& described) {
+    if (!described) return wrap("The model has no natural swing modes to show.", "  ", "  ");
+    const SwingModes& modes = *described;
+    TextTable t({"mode", "period", "frequency", "angular freq.", "load/hook angle", "swing"},
+                "lrrrrl");
+    const std::pair<const char*, const SwingMode*> rows[] = {{"1 (slow)", &modes.first},
+                                                             {"2 (fast)", &modes.second}};
+    for (const auto& [name, m] : rows) {
+        t.add({name, seconds(m->period), num(frequency_hz(*m)) + " Hz",
+               num(m->angular_frequency) + " rad/s", num(m->load_per_hook_angle),
+               m->load_per_hook_angle > 0   ? "hook and load together"
+               : m->load_per_hook_angle < 0 ? "hook and load opposed"
+                                            : "load still"});
+    }
+    return t.render();
+}
+
+std::string cautions_and_assumptions_text(const ModelDescription& model) {
+    std::string out = heading("Cautions");
+    for (const std::string& c : lift_cautions()) out += wrap(c, "  - ", "    ");
+    out += heading("Model assumptions");
+    for (const std::string& m : model.assumptions) out += wrap(m, "  - ", "    ");
+    return out;
+}
+
+std::string job_header(const Job& job, std::string_view title, UnitSystem units) {
+    std::string out = std::string(title) + "\n" + std::string(title.size(), '=') + "\n";
+    out += field("Job", job.title.empty() ? "(no title)" : job.title);
+    out += field("Reference", job.reference.empty() ? "(none)" : job.reference);
+    out += field("Job file", job.source_file.empty() ? "(not from a file)" : job.source_file);
+    out += field("Units", unit_system_label(units));
+    return out;
+}
+
+std::string load_text(double newtons, UnitSystem u) {
+    // A rated load is a force; planners also read it as a mass at standard gravity.
+    // In US units lbf and lb have the same number there, so the mass is not repeated.
+    if (u == UnitSystem::us_customary) return qty(newtons, Dimension::load, u);
+    return qty(newtons, Dimension::load, u) + " (" +
+           qty(newtons / standard_gravity, Dimension::mass, u) + " at standard gravity)";
+}
+
+std::string input_digest(const LiftAssessment& a, UnitSystem u) {
+    const Job& job = a.job;
+    const MotionDigest m = digest_motion(job.motion);
+    std::string out = heading("Input");
+    std::string motion;
+    if (m.from_history) {
+        motion = "speed history of " + std::to_string(m.count) + " rows";
+        if (!job.motion.speed_history_file.empty()) motion += " from " + job.motion.speed_history_file;
+    } else {
+        motion = std::to_string(m.count) + (m.count == 1 ? " move" : " moves");
+    }
+    motion += "; total travel " + qty(m.total_travel, Dimension::length, u) + ", end position " +
+              qty(m.net_travel, Dimension::length, u) + "; peak speed " +
+              qty(m.peak_speed, Dimension::speed, u) + "; peak acceleration " +
+              qty(m.peak_acceleration, Dimension::acceleration, u) + "; support at rest for good from t = " +
+              seconds(a.prediction.end_of_motion);
+    out += field("Motion", motion);
+
+    std::string hoist = "rope length " + qty(job.hoist.rope_length, Dimension::length, u) + "; " +
+                        std::to_string(job.hoist.parts_of_line) + " parts of line; rated load " +
+                        load_text(job.hoist.rated_load, u);
+    if (job.hoist.rope_wll) hoist += "; rope WLL per line " + qty(*job.hoist.rope_wll, Dimension::force, u);
+    if (job.hoist.rope_minimum_breaking_load) {
+        hoist += "; rope minimum breaking load per line " +
+                 qty(*job.hoist.rope_minimum_breaking_load, Dimension::force, u);
+    }
+    out += field("Hoist", hoist);
+    out += field("Hook block", "mass " + qty(job.hook_block.mass, Dimension::mass, u));
+
+    std::string rigging = "length hook to load CG " + qty(job.rigging.length, Dimension::length, u) +
+                          "; " + std::to_string(job.rigging.legs) +
+                          (job.rigging.legs == 1 ? " leg" : " legs") + " at " +
+                          qty(job.rigging.leg_angle_from_horizontal, Dimension::angle, u) +
+                          " from horizontal, " + std::to_string(job.rigging.legs_bearing) +
+                          " taken as bearing";
+    if (job.rigging.leg_wll) rigging += "; leg WLL " + qty(*job.rigging.leg_wll, Dimension::force, u);
+    out += field("Rigging", rigging);
+
+    std::string load = "mass " + qty(job.load.mass, Dimension::mass, u) + "; radius of gyration " +
+                       qty(job.load.radius_of_gyration, Dimension::length, u);
+    if (job.load.radius_of_gyration == 0) load += " (point mass)";
+    if (job.load.initial_angle != 0 || job.load.initial_rate != 0) {
+        load += "; starts swung " + qty(job.load.initial_angle, Dimension::angle, u) + " at " +
+                qty(job.load.initial_rate, Dimension::angular_rate, u);
+    }
+    out += field("Load", load);
+    out += field("Gravity", qty(job.environment.gravity, Dimension::acceleration, u));
+    return out;
+}
+
+std::string peaks_section(const LiftAssessment& a, UnitSystem u) {
+    const LiftPrediction& p = a.prediction;
+    const SimulationResult& s = p.simulation;
+    TextTable t({"quantity", "peak", "at t", "static", "least"}, "lrrrr");
+    for (const QuantitySpec& q : quantity_table()) {
+        if (!has_record(q, Record::peak)) continue;
+        const Peak peak = p.peak(q.id);
+        const std::optional<double> at_rest = p.static_value(q.id);
+        std::string least;
+        if (has_record(q, Record::least)) {
+            least = qty(s.least[q.id].value, q.dimension, u) + " at " + when(s.least[q.id].time, p);
+        }
+        t.add({q.words, qty(peak.value, q.dimension, u), when(peak.time, p),
+               at_rest ? qty(*at_rest, q.dimension, u) : "", std::move(least)});
+    }
+    std::string out = heading("Peaks over the whole simulation (t = 0 to " + seconds(p.end_time) + ")");
+    out += t.render();
+    out += wrap("Angles and offsets are magnitudes (either direction). Static: everything hanging "
+                "at rest. Line pull = total / " + std::to_string(p.parts_of_line) +
+                " parts of line. Rigging resultant: the whole force between hook and rigging. "
+                "Sling leg tension = rigging resultant x " + num(p.sling_leg_factor) +
+                " (leg rule).", "  ", "  ");
+    out += past_validity_note(p);
+    return out;
+}
+
+// The quantities with a residual record, in the order of the residual section.
+std::vector<const QuantitySpec*> residual_quantities() {
+    std::vector<const QuantitySpec*> out;
+    for (const QuantitySpec& q : quantity_table()) {
+        if (has_record(q, Record::residual)) out.push_back(&q);
+    }
+    std::stable_sort(out.begin(), out.end(),
+                     [](const QuantitySpec* x, const QuantitySpec* y) { return x->residual_rank < y->residual_rank; });
+    return out;
+}
+
+std::string residual_section(const LiftAssessment& a, UnitSystem u) {
+    const LiftPrediction& p = a.prediction;
+    const SimulationResult& s = p.simulation;
+    std::string out = heading("Residual swing after the last move");
+    const double window = p.end_time - s.residual_from;
+    if (!(window > 0)) {
+        out += wrap("No free swing after the last move was simulated, so no residual swing was "
+                    "measured.", "  ", "  ");
+        return out;
+    }
+    out += field("Measured over", "t = " + num(s.residual_from) + " s to " + seconds(p.end_time) +
+                                      " (" + seconds(window) + ")");
+    for (const QuantitySpec* q : residual_quantities()) {
+        const Peak& r = s.residual[q->id];
+        out += field(q->residual_words, qty(r.value, q->dimension, u) + " at t = " + when(r.time, p));
+    }
+    if (p.model.modes && window < p.model.modes->first.period) {
+        out += wrap("Note: the window is shorter than one period of the slow swing mode (" +
+                        seconds(p.model.modes->first.period) + "), so the amplitude may be understated.",
+                    "  ", "  ");
+    }
+    out += wrap("No damping is modelled: in the model this swing continues until the next move.",
+                "  ", "  ");
+    out += past_validity_note(p);
+    return out;
+}
+
+std::string value_text(const CheckResult& c, double v, UnitSystem u) { return qty(v, c.dimension, u); }
+
+std::string checks_section(const LiftAssessment& a, UnitSystem u) {
+    std::string out = heading("Checks");
+    if (a.checks.empty()) {
+        out += wrap("No checks were run: the job gives no limits.", "  ", "  ");
+    } else {
+        TextTable t({"check", "value", "limit", "margin", "value at t", "first exceeded", "verdict"},
+                    "lrrrrrl");
+        for (const CheckResult& c : a.checks) {
+            std::string word = verdict_word(c.verdict);
+            if (c.verdict == Verdict::fail) word += " !!!";
+            if (c.verdict == Verdict::caution) word += " ***";
+            t.add({c.name, value_text(c, c.value, u), value_text(c, c.limit, u), percent(c.margin),
+                   when(c.value_time, a.prediction), c.first_exceedance ? "t = " + seconds(*c.first_exceedance) : "never",
+                   word});
+        }
+        out += t.render();
+        out += past_validity_note(a.prediction);
+        out += "\n";
+        for (const CheckResult& c : a.checks) {
+            std::string text = c.name + ": " + c.description;
+            if (!c.note.empty()) text += ". " + c.note;
+            out += wrap(text, "  ", "    ");
+        }
+        out += wrap("Margin: share of the limit still unused (1 - value/limit); a value above " +
+                        percent(a.job.limits.caution_fraction) + " of its limit is a CAUTION.",
+                    "  ", "  ");
+    }
+    const std::vector<std::string> missing = limits_not_given(a.job.limits);
+    if (!missing.empty()) {
+        out += wrap("No limit given in the job for: " + join(missing, ", ") +
+                        " (any default a check above applies instead is stated in its note).",
+                    "  ", "  ");
+    }
+    out += "\n";
+    out += wrap(std::string("Overall verdict: ") + verdict_word(a.overall) + " - " + verdict_explanation(a),
+                "  ", "  ");
+    return out;
+}
+
+std::string statistics_line(const LiftAssessment& a) {
+    const IntegrationStats& st = a.prediction.simulation.stats;
+    const AnalysisSettings& an = a.job.analysis;
+    return "Integrator: " + std::string(integrator_name(an.integrator)) + ", " +
+           std::to_string(st.steps) + " steps, " + std::to_string(st.rejected_steps) +
+           " rejected, " + std::to_string(st.rhs_evaluations) + " right-hand-side evaluations, " +
+           std::to_string(st.restarts) + " restarts; relative tolerance " +
+           num(an.relative_tolerance) + ", absolute tolerance " + num(an.absolute_tolerance) + ".";
+}
+
+}  // namespace
+
+std::string format_summary(const LiftAssessment& a, UnitSystem units) {
+    std::string out = job_header(a.job, "plumb lift check", units);
+    out += "\n" + verdict_banner(a);
+    const std::vector<std::string> slack = slack_statements(a.prediction);
+    for (const std::string& s : slack) out += wrap("SLACK: " + s, "!!! ", "    ");
+
+    out += input_digest(a, units);
+    out += heading("Swing modes (small swings)");
+    out += modes_table(a.prediction.model.modes);
+    out += peaks_section(a, units);
+    out += residual_section(a, units);
+    out += checks_section(a, units);
+    for (const std::string& s : slack) out += wrap("SLACK: " + s, "  !!! ", "      ");
+
+    out += heading("Notices");
+    if (a.notices.empty()) out += "  (none)\n";
+    for (const std::string& n : a.notices) out += wrap(n, "  - ", "    ");
+
+    out += cautions_and_assumptions_text(a.prediction.model);
+    out += "\n" + wrap(statistics_line(a), "", "");
+    return out;
+}
+
+std::string format_modes(const Job& job, const ModelDescription& model, UnitSystem units) {
+    std::string out = job_header(job, "plumb swing modes", units);
+    out += heading("Input");
+    out += field("Hoist rope length", qty(job.hoist.rope_length, Dimension::length, units));
+    out += field("Hook block mass", qty(job.hook_block.mass, Dimension::mass, units));
+    out += field("Rigging length", qty(job.rigging.length, Dimension::length, units));
+    std::string load = qty(job.load.mass, Dimension::mass, units) + "; radius of gyration " +
+                       qty(job.load.radius_of_gyration, Dimension::length, units);
+    if (job.load.radius_of_gyration == 0) load += " (point mass)";
+    out += field("Load mass", load);
+    out += field("Gravity", qty(job.environment.gravity, Dimension::acceleration, units));
+    out += heading("Swing modes");
+    out += modes_table(model.modes);
+    out += "\n";
+    out += wrap("Mode shape: load angle per unit hook rope angle, both from the vertical. Periods "
+                "are for small swings about the vertical (linearized equations); larger swings are "
+                "slower. No checks are made by this command.", "  ", "  ");
+    out += cautions_and_assumptions_text(model);
+    return out;
+}
+
+}  // namespace plumb

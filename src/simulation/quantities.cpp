@@ -1,0 +1,130 @@
+// The table of reported quantities (quantities.hpp).
+#include "plumb/quantities.hpp"
+
+#include <cmath>
+
+namespace plumb {
+
+namespace {
+
+const Member& rope(const Observation& o) { return o.member(MemberId::hoist_rope); }
+const Member& rigging(const Observation& o) { return o.member(MemberId::rigging); }
+
+constexpr Quantity no_base = Quantity::support_position;  // unused by simulated quantities
+
+// A simulated quantity.
+constexpr QuantitySpec simulated(Quantity id, const char* key, const char* words, const char* residual_words,
+                                 Dimension d, unsigned records, double (*read)(const Observation&),
+                                 bool magnitude = false, StaticReference ref = StaticReference::none,
+                                 bool static_in_json = false, int residual_rank = 0) {
+    return {id, key, words, residual_words, d, records, read, magnitude, no_base, nullptr, ref, static_in_json,
+            residual_rank};
+}
+
+// A quantity derived value by value from another.
+constexpr QuantitySpec derived(Quantity id, const char* key, const char* words, Dimension d, unsigned records,
+                               Quantity base, double (*derive)(double, const LiftScales&), bool static_in_json) {
+    return {id, key, words, "", d, records, nullptr, false, base, derive, StaticReference::none, static_in_json,
+            0};
+}
+
+constexpr QuantitySpec table[] = {
+    simulated(Quantity::support_position, "support_position", "", "", Dimension::length, series,
+              [](const Observation& o) { return o.support.position.x(); }),
+    simulated(Quantity::support_speed, "support_speed", "", "", Dimension::speed, series,
+              [](const Observation& o) { return o.support.velocity.x(); }),
+    simulated(Quantity::support_acceleration, "support_acceleration", "", "", Dimension::acceleration, series,
+              [](const Observation& o) { return o.support.acceleration.x(); }),
+    simulated(Quantity::hook_rope_angle, "hook_rope_angle", "hook rope angle from vertical", "Hook rope angle",
+              Dimension::angle, series | peak | residual | crossing,
+              [](const Observation& o) { return rope(o).angle(); }, true, StaticReference::none, false, 1),
+    simulated(Quantity::hook_rope_rate, "hook_rope_rate", "", "", Dimension::angular_rate, series,
+              [](const Observation& o) { return rope(o).angular_rate(); }),
+    simulated(Quantity::load_angle, "load_angle", "load angle from vertical", "Load angle", Dimension::angle,
+              series | peak | residual | crossing, [](const Observation& o) { return rigging(o).angle(); }, true,
+              StaticReference::none, false, 2),
+    simulated(Quantity::load_rate, "load_rate", "", "", Dimension::angular_rate, series,
+              [](const Observation& o) { return rigging(o).angular_rate(); }),
+    simulated(Quantity::hook_x, "hook_x", "", "", Dimension::length, series,
+              [](const Observation& o) { return o.hook_block.x(); }),
+    simulated(Quantity::hook_z, "hook_z", "", "", Dimension::length, series,
+              [](const Observation& o) { return o.hook_block.z(); }),
+    simulated(Quantity::load_x, "load_x", "", "", Dimension::length, series,
+              [](const Observation& o) { return o.load_cg.x(); }),
+    simulated(Quantity::load_z, "load_z", "", "", Dimension::length, series,
+              [](const Observation& o) { return o.load_cg.z(); }),
+    // The horizontal distance of the load's centre of gravity from the vertical
+    // through the suspension point.
+    simulated(Quantity::load_offset, "load_offset", "load offset from support", "Load offset amplitude",
+              Dimension::length, peak | residual | crossing,
+              [](const Observation& o) { return std::hypot(o.load_cg.x(), o.load_cg.y()); }, false,
+              StaticReference::none, false, 0),
+    simulated(Quantity::hoist_rope_tension, "hoist_rope_tension", "hoist rope tension, total", "",
+              Dimension::force, series | peak | least | crossing,
+              [](const Observation& o) { return rope(o).tension; }, false, StaticReference::hoist_rope_tension,
+              true),
+    derived(Quantity::line_pull, "line_pull", "line pull, per part of line", Dimension::force, series | peak,
+            Quantity::hoist_rope_tension, [](double v, const LiftScales& s) { return v / s.parts_of_line; }, true),
+    simulated(Quantity::rigging_tension, "rigging_tension", "rigging tension", "", Dimension::force,
+              series | peak | least | crossing, [](const Observation& o) { return rigging(o).tension; }, false,
+              StaticReference::rigging_tension, true),
+    simulated(Quantity::rigging_resultant, "rigging_resultant", "rigging resultant", "", Dimension::force,
+              series | peak | crossing, [](const Observation& o) { return rigging(o).resultant; }, false,
+              StaticReference::rigging_tension, false),
+    // The legs share the whole force between hook and rigging (conservative for
+    // a load with a radius of gyration, whose pin force leans off the rigging line).
+    derived(Quantity::sling_leg_tension, "sling_leg_tension", "sling leg tension", Dimension::force,
+            series | peak, Quantity::rigging_resultant,
+            [](double v, const LiftScales& s) { return v * s.sling_leg_factor; }, true),
+    derived(Quantity::dynamic_factor, "dynamic_factor", "dynamic factor, hoist rope", Dimension::ratio, peak,
+            Quantity::hoist_rope_tension,
+            [](double v, const LiftScales& s) { return v / s.static_loads.hoist_rope_tension; }, false),
+    derived(Quantity::rigging_dynamic_factor, "rigging_dynamic_factor", "dynamic factor, rigging",
+            Dimension::ratio, peak, Quantity::rigging_tension,
+            [](double v, const LiftScales& s) { return v / s.static_loads.rigging_tension; }, false),
+};
+
+static_assert(std::size(table) == quantity_count);
+
+constexpr bool table_in_enum_order() {
+    for (std::size_t i = 0; i < std::size(table); ++i) {
+        if (index_of(table[i].id) != i) return false;
+    }
+    return true;
+}
+static_assert(table_in_enum_order(), "quantity_table() must list the quantities in the order of the enum");
+
+}  // namespace
+
+std::span<const QuantitySpec> quantity_table() { return table; }
+
+const QuantitySpec& quantity_spec(Quantity q) { return table[index_of(q)]; }
+
+double quantity_value(const Observation& o, Quantity q) {
+    const QuantitySpec& s = table[index_of(q)];
+    const double v = s.read(o);
+    return s.magnitude ? std::fabs(v) : v;
+}
+
+double series_value(const Observation& o, Quantity q, const LiftScales& scales) {
+    const QuantitySpec& s = table[index_of(q)];
+    if (is_derived(s)) return s.derive(series_value(o, s.base, scales), scales);
+    return s.read(o);
+}
+
+std::optional<double> static_value(Quantity q, const LiftScales& scales) {
+    const QuantitySpec& s = table[index_of(q)];
+    if (is_derived(s)) {
+        const std::optional<double> base = static_value(s.base, scales);
+        if (!base) return std::nullopt;
+        return s.derive(*base, scales);
+    }
+    switch (s.static_reference) {
+        case StaticReference::none: return std::nullopt;
+        case StaticReference::hoist_rope_tension: return scales.static_loads.hoist_rope_tension;
+        case StaticReference::rigging_tension: return scales.static_loads.rigging_tension;
+    }
+    return std::nullopt;
+}
+
+}  // namespace plumb
