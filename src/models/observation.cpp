@@ -14,17 +14,24 @@ Member Member::in_plane(double length, double angle, double sin_angle, double co
 
 // With rho the horizontal length and z the (negative) height of the vector,
 // the angle from the vertical is atan2(rho, -z); its rate follows by the chain
-// rule: (rho' (-z) + rho z') / (rho^2 + z^2).
+// rule: (rho' (-z) + rho z') / (rho^2 + z^2), except straight down, where rho
+// has no derivative.
 Member Member::along(const Eigen::Vector3d& vector, const Eigen::Vector3d& velocity) {
     Member m;
     m.vector_ = vector;
     const double rho = std::hypot(vector.x(), vector.y());
     const double sign = std::signbit(vector.x()) ? -1.0 : 1.0;
     m.angle_ = sign * std::atan2(rho, -vector.z());
-    const double rho_rate = rho > 0 ? (vector.x() * velocity.x() + vector.y() * velocity.y()) / rho : 0.0;
     const double squared_length = vector.squaredNorm();
-    m.angular_rate_ =
-        squared_length > 0 ? sign * (rho_rate * -vector.z() + rho * velocity.z()) / squared_length : 0.0;
+    if (squared_length == 0) return m;
+    if (rho > 0) {
+        const double rho_rate = (vector.x() * velocity.x() + vector.y() * velocity.y()) / rho;
+        m.angular_rate_ = sign * (rho_rate * -vector.z() + rho * velocity.z()) / squared_length;
+    } else {
+        // Hanging plumb: the member leaves the vertical at the horizontal speed
+        // of its end over its length, signed like that speed's x component.
+        m.angular_rate_ = std::copysign(std::hypot(velocity.x(), velocity.y()), velocity.x()) / std::sqrt(squared_length);
+    }
     return m;
 }
 
