@@ -108,7 +108,9 @@ Observation RigidPendulumModel::observe(double t, const Regime& r, std::span<con
     rigging.tension = -fx2 * s2 + fz2 * c2;      // along the rigging, toward the hook
     rigging.resultant = std::hypot(fx2, fz2);
     rope.tension = -fx1 * s1 + fz1 * c1;         // along the rope, toward the support
-    rope.resultant = std::hypot(fx1, fz1);
+    // The rope is a pinned massless two-force member: its force lies along it
+    // on every solution (docs/model.md, "Tensions"), so its magnitude is |T1|.
+    rope.resultant = std::fabs(rope.tension);
     return o;
 }
 

@@ -10,6 +10,11 @@ namespace {
 const Member& rope(const Observation& o) { return o.member(MemberId::hoist_rope); }
 const Member& rigging(const Observation& o) { return o.member(MemberId::rigging); }
 
+// hypot(x, 0) is |x| exactly (C11 F.10.4.3); the planar models take the short way.
+double horizontal_distance(const Eigen::Vector3d& v) {
+    return v.y() == 0 ? std::fabs(v.x()) : std::hypot(v.x(), v.y());
+}
+
 constexpr Quantity no_base = Quantity::support_position;  // unused by simulated quantities
 
 // A simulated quantity.
@@ -57,7 +62,7 @@ constexpr QuantitySpec table[] = {
     // through the suspension point.
     simulated(Quantity::load_offset, "load_offset", "load offset from support", "Load offset amplitude",
               Dimension::length, peak | residual | crossing,
-              [](const Observation& o) { return std::hypot(o.load_cg.x(), o.load_cg.y()); }, false,
+              [](const Observation& o) { return horizontal_distance(o.load_cg); }, false,
               StaticReference::none, false, 0),
     simulated(Quantity::hoist_rope_tension, "hoist_rope_tension", "hoist rope tension, total", "",
               Dimension::force, series | peak | least | crossing,

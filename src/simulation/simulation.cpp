@@ -39,11 +39,25 @@ void add_trackers(std::vector<ExtremeTracker>& whole_run, std::vector<ExtremeTra
 
 }  // namespace
 
+// The simulated quantities with a record beyond the time series: their values
+// at a step's samples are read once per step and shared by all their records.
+std::vector<Quantity> recorded_quantities() {
+    std::vector<Quantity> out;
+    for (const QuantitySpec& q : quantity_table()) {
+        if (!is_derived(q) && (q.records & ~unsigned{Record::series}) != 0) out.push_back(q.id);
+    }
+    return out;
+}
+
+using SampleValues = std::array<double, samples_per_step + 1>;
+
 struct SimulationWorkspace::Buffers {
     std::vector<ExtremeTracker> whole_run, residual;
+    std::vector<Quantity> recorded = recorded_quantities();
     std::vector<double> x, x0, breaks;
     std::array<double, samples_per_step + 1> times{};
     std::array<Observation, samples_per_step + 1> samples{};
+    PerQuantity<SampleValues> values{};  // of the recorded quantities at the samples
     Buffers() { add_trackers(whole_run, residual); }
 };
 
@@ -59,8 +73,8 @@ public:
     Recorder(const SwingModel& model, const SimulationRequest& request, double residual_from,
              SimulationResult& result, Buffers& buffers)
         : model_(model), request_(request), residual_from_(residual_from), result_(result),
-          x_(buffers.x), times_(buffers.times), samples_(buffers.samples), whole_run_(buffers.whole_run),
-          residual_(buffers.residual) {
+          x_(buffers.x), times_(buffers.times), samples_(buffers.samples), values_(buffers.values),
+          recorded_(buffers.recorded), whole_run_(buffers.whole_run), residual_(buffers.residual) {
         x_.resize(2 * model.degrees_of_freedom());
         for (ExtremeTracker& t : whole_run_) t.seen = false;
         for (ExtremeTracker& t : residual_) t.seen = false;
@@ -78,6 +92,9 @@ public:
             samples_[j] = observe(times_[j]);
         }
         times_[0] = step.t_begin;
+        for (Quantity q : recorded_) {
+            for (int j = 0; j <= samples_per_step; ++j) values_[q][j] = quantity_value(samples_[j], q);
+        }
         step_seen_ = true;
         last_interval_ = step.interval;
         for (ExtremeTracker& tracker : whole_run_) update(tracker);
@@ -97,9 +114,17 @@ private:
         return model_.observe(t, Regime{step_->interval}, x_);
     }
     double value_at(double t, Quantity q) { return quantity_value(observe(t), q); }
+    // A quantity at sample j of this step: read once per step if it has records.
+    double sample_value(int j, Quantity q) const {
+        const QuantitySpec& spec = quantity_spec(q);
+        if ((spec.records & ~unsigned{Record::series}) != 0) return values_[q][j];
+        return quantity_value(samples_[j], q);
+    }
 
     void update(ExtremeTracker& tracker) {
-        auto score_at = [&](int j) { return tracker.score(quantity_value(samples_[j], tracker.quantity)); };
+        std::array<double, samples_per_step + 1> scores;
+        for (int j = 0; j <= samples_per_step; ++j) scores[j] = tracker.score(values_[tracker.quantity][j]);
+        auto score_at = [&](int j) { return scores[j]; };
         int best = 0;
         for (int j = 1; j <= samples_per_step; ++j) {
             if (score_at(j) > score_at(best)) best = j;
@@ -145,7 +170,7 @@ private:
     std::optional<double> crossing(const WatchLevel& w) {
         auto reached = [&](double value) { return w.below ? value <= w.level : value >= w.level; };
         for (int j = 0; j <= samples_per_step; ++j) {
-            if (!reached(quantity_value(samples_[j], w.quantity))) continue;
+            if (!reached(sample_value(j, w.quantity))) continue;
             if (j == 0) return times_[0];
             double before = times_[j - 1], after = times_[j];
             for (int i = 0; i < 60 && after - before > 1e-12; ++i) {
@@ -174,6 +199,8 @@ private:
     std::vector<double>& x_;
     std::array<double, samples_per_step + 1>& times_;
     std::array<Observation, samples_per_step + 1>& samples_;
+    PerQuantity<SampleValues>& values_;
+    const std::vector<Quantity>& recorded_;
     std::vector<ExtremeTracker>& whole_run_;
     std::vector<ExtremeTracker>& residual_;
     const DenseStep* step_ = nullptr;
