@@ -59,8 +59,9 @@ struct LiftAssessment {
     std::vector<std::string> notices;  // warnings about the input a planner must see
 };
 
-// Seconds of free swing after the last move when the job does not say.
-double automatic_duration_after(const SwingModes& modes);
+// Seconds of free swing after the last move when the job does not say: four
+// periods of the slow swing mode, at least 20 s (20 s for a model without modes).
+double automatic_duration_after(const std::optional<SwingModes>& modes);
 
 // The model's description with the assumptions of the lift arithmetic (line
 // pull, sling legs) added, as every output states them.
@@ -68,9 +69,10 @@ ModelDescription describe_for_lift(const SwingModel& model);
 // The same for the model the job asks for.
 ModelDescription describe_lift_model(const Job& job);
 
-// Run the prediction. output_step > 0 keeps a time series on that grid.
-LiftPrediction predict_lift(const Job& job, const SwingModel& model, const std::vector<WatchLevel>& watch,
-                            double output_step);
+// Run the prediction with the model and its description (describe_for_lift).
+// output_step > 0 keeps a time series on that grid.
+LiftPrediction predict_lift(const Job& job, const SwingModel& model, const ModelDescription& description,
+                            const std::vector<WatchLevel>& watch, double output_step);
 
 // Levels whose first crossing the checks report, from the job's limits.
 std::vector<WatchLevel> watch_levels(const Job& job, const StaticLoads& static_loads);

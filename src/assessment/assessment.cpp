@@ -5,7 +5,6 @@
 #include <algorithm>
 #include <cmath>
 #include <memory>
-#include <numbers>
 #include <sstream>
 
 #include "plumb/model.hpp"
@@ -105,7 +104,9 @@ CheckResult taut_check(const LiftPrediction& p, std::string name, std::string de
 
 }  // namespace
 
-double automatic_duration_after(const SwingModes& modes) { return std::max(20.0, 4 * modes.first.period); }
+double automatic_duration_after(const std::optional<SwingModes>& modes) {
+    return modes ? std::max(20.0, 4 * modes->first.period) : 20.0;
+}
 
 std::vector<WatchLevel> watch_levels(const Job& job, const StaticLoads& static_loads) {
     const Limits& l = job.limits;
@@ -151,13 +152,12 @@ ModelDescription describe_for_lift(const SwingModel& model) {
 
 ModelDescription describe_lift_model(const Job& job) { return describe_for_lift(*make_swing_model(job)); }
 
-LiftPrediction predict_lift(const Job& job, const SwingModel& model, const std::vector<WatchLevel>& watch,
-                            double output_step) {
+LiftPrediction predict_lift(const Job& job, const SwingModel& model, const ModelDescription& description,
+                            const std::vector<WatchLevel>& watch, double output_step) {
     LiftPrediction p;
-    p.model = describe_for_lift(model);
+    p.model = description;
     p.end_of_motion = model.motion().end_of_motion();
-    const double automatic = p.model.modes ? automatic_duration_after(*p.model.modes) : automatic_duration_after({});
-    p.end_time = p.end_of_motion + job.analysis.duration_after.value_or(automatic);
+    p.end_time = p.end_of_motion + job.analysis.duration_after.value_or(automatic_duration_after(p.model.modes));
 
     SimulationRequest request;
     request.end_time = p.end_time;
@@ -298,8 +298,9 @@ LiftAssessment assess_lift(const Job& job, bool keep_time_series) {
     LiftAssessment a;
     a.job = job;
     const std::unique_ptr<SwingModel> model = make_swing_model(job);
-    const std::vector<WatchLevel> watch = watch_levels(job, model->describe().static_loads);
-    a.prediction = predict_lift(job, *model, watch, keep_time_series ? job.analysis.output_step : 0.0);
+    const ModelDescription description = describe_for_lift(*model);
+    const std::vector<WatchLevel> watch = watch_levels(job, description.static_loads);
+    a.prediction = predict_lift(job, *model, description, watch, keep_time_series ? job.analysis.output_step : 0.0);
     a.checks = run_checks(job, a.prediction, watch);
     a.overall = overall_verdict(a.checks);
     a.notices = input_notices(job, a.prediction);
