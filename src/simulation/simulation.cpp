@@ -84,8 +84,10 @@ public:
     void on_step(const DenseStep& step) override {
         // The first sample is the last one of the previous step, unless a break
         // (where the support's acceleration may jump) lies between them.
-        const bool continues = step_seen_ && step.interval == last_interval_ && step.t_begin == times_.back();
+        const Regime regime{step.interval};  // the step's regime: the one place that builds it
+        const bool continues = step_seen_ && regime == regime_ && step.t_begin == times_.back();
         step_ = &step;
+        regime_ = regime;
         if (continues) samples_[0] = samples_.back();
         for (int j = continues ? 1 : 0; j <= samples_per_step; ++j) {
             times_[j] = step.t_begin + (step.t_end - step.t_begin) * j / samples_per_step;
@@ -96,7 +98,6 @@ public:
             for (int j = 0; j <= samples_per_step; ++j) values_[q][j] = quantity_value(samples_[j], q);
         }
         step_seen_ = true;
-        last_interval_ = step.interval;
         for (ExtremeTracker& tracker : whole_run_) update(tracker);
         // The motion's end is a break, so a step lies wholly before or after it.
         if (step.t_begin >= residual_from_) {
@@ -111,7 +112,7 @@ public:
 private:
     Observation observe(double t) {
         step_->state_at(t, x_);
-        return model_.observe(t, Regime{step_->interval}, x_);
+        return model_.observe(t, regime_, x_);
     }
     double value_at(double t, Quantity q) { return quantity_value(observe(t), q); }
     // A quantity at sample j of this step: read once per step if it has records.
@@ -205,7 +206,7 @@ private:
     std::vector<ExtremeTracker>& residual_;
     const DenseStep* step_ = nullptr;
     bool step_seen_ = false;
-    std::size_t last_interval_ = 0;
+    Regime regime_;  // of the current step
     long next_output_ = 0;
 };
 
