@@ -221,7 +221,7 @@ TEST_CASE("the equations of motion agree with the Newton-Euler reference at arbi
             // through the integrator's interface, state [theta1, theta2, omega1, omega2]
             const std::vector<double> x = {y[0], y[1], y[2], y[3]};
             std::vector<double> dxdt(4, 0.0);
-            model.derivatives(t, piece, x, dxdt);
+            model.derivatives(t, plumb::Regime{piece}, x, dxdt);
             CHECK(dxdt[0] == y[2]);
             CHECK(dxdt[1] == y[3]);
             CHECK_THAT(dxdt[2], Catch::Matchers::WithinAbs(u[0], 1e-12 * (1 + std::abs(u[0]))));
@@ -233,7 +233,7 @@ TEST_CASE("the equations of motion agree with the Newton-Euler reference at arbi
             CHECK_THAT(alpha1, Catch::Matchers::WithinAbs(u[0], 1e-12 * (1 + std::abs(u[0]))));
             CHECK_THAT(alpha2, Catch::Matchers::WithinAbs(u[1], 1e-12 * (1 + std::abs(u[1]))));
             // tensions
-            const auto o = model.observe(t, piece, x);
+            const auto o = model.observe(t, plumb::Regime{piece}, x);
             const double rigging = -u[3] * std::sin(y[1]) + u[4] * std::cos(y[1]);
             CHECK_THAT(o.hoist_rope_tension, Catch::Matchers::WithinAbs(u[2], 1e-9 * crane.m2 * crane.g));
             CHECK_THAT(o.rigging_tension, Catch::Matchers::WithinAbs(rigging, 1e-9 * crane.m2 * crane.g));

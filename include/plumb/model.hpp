@@ -9,20 +9,9 @@
 
 #include "plumb/job.hpp"
 #include "plumb/motion.hpp"
+#include "plumb/system.hpp"
 
 namespace plumb {
-
-// The integrator's view of a model: a second-order mechanical system whose state
-// is [q_0..q_{n-1}, qdot_0..qdot_{n-1}] with n = degrees_of_freedom(), and whose
-// right-hand side is smooth on each interval [breaks[k], breaks[k+1]].
-class SecondOrderSystem {
-public:
-    virtual ~SecondOrderSystem() = default;
-    virtual std::size_t degrees_of_freedom() const = 0;
-    // dxdt = f(t, x) on interval k (k selects the smooth piece even at its ends).
-    virtual void derivatives(double t, std::size_t interval, std::span<const double> x,
-                             std::span<double> dxdt) const = 0;
-};
 
 // What the checks and outputs read at one instant, whatever model produced it.
 struct Observation {
@@ -40,11 +29,15 @@ struct Observation {
                                     //    load with a radius of gyration, whose pin force has a side part
 };
 
-class SwingModel : public SecondOrderSystem {
+// What the integrator sees of a model is a DynamicSystem (system.hpp); the
+// interval of its Regime is an interval between the support path's breaks.
+class SwingModel : public DynamicSystem {
 public:
     virtual std::vector<double> initial_state() const = 0;
-    virtual Observation observe(double t, std::size_t interval, std::span<const double> x) const = 0;
-    // Interval k of the integration is piece k of this motion.
+    virtual Observation observe(double t, const Regime& r, std::span<const double> x) const = 0;
+    // The support's path; integration interval k is its interval k.
+    virtual const SupportTrajectory& trajectory() const = 0;
+    // The travel along x alone (the planar models' one axis).
     virtual const SupportMotion& motion() const = 0;
     // Tensions with everything at rest: the reference for dynamic factors.
     virtual double static_hoist_rope_tension() const = 0;
@@ -67,16 +60,22 @@ struct RigidPendulumParameters {
 
 class RigidPendulumModel final : public SwingModel {
 public:
+    // absolute_tolerance: of every state component (rad and rad/s).
     RigidPendulumModel(const RigidPendulumParameters& p, SupportMotion motion,
-                       double initial_angle = 0, double initial_rate = 0);
+                       double initial_angle = 0, double initial_rate = 0, double absolute_tolerance = 1e-10);
     static RigidPendulumModel from_job(const Job& job);
 
-    std::size_t degrees_of_freedom() const override { return 2; }
-    void derivatives(double t, std::size_t interval, std::span<const double> x,
-                     std::span<double> dxdt) const override;
+    // State [theta1, theta2, omega1, omega2]: hook rope and rigging angles and rates.
+    std::size_t state_size() const override { return 4; }
+    std::vector<StateComponent> state_components() const override;
+    std::size_t second_order_dof() const override { return 2; }
+    void derivatives(double t, const Regime& r, std::span<const double> x, std::span<double> dxdt) const override;
+    // Analytic, in rigid_pendulum_jacobian.cpp.
+    bool jacobian(double t, const Regime& r, std::span<const double> x, std::span<double> J) const override;
     std::vector<double> initial_state() const override;
-    Observation observe(double t, std::size_t interval, std::span<const double> x) const override;
-    const SupportMotion& motion() const override { return motion_; }
+    Observation observe(double t, const Regime& r, std::span<const double> x) const override;
+    const SupportTrajectory& trajectory() const override { return path_; }
+    const SupportMotion& motion() const override { return path_.channel(SupportPath::x); }
     double static_hoist_rope_tension() const override;
     double static_rigging_tension() const override;
 
@@ -88,8 +87,9 @@ public:
 
 private:
     RigidPendulumParameters p_;
-    SupportMotion motion_;
+    SupportPath path_;
     double initial_angle_, initial_rate_;
+    double absolute_tolerance_;
 };
 
 }  // namespace plumb

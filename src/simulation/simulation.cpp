@@ -43,7 +43,7 @@ public:
     Recorder(const SwingModel& model, const SimulationRequest& request, double residual_from,
              SimulationResult& result)
         : model_(model), request_(request), residual_from_(residual_from), result_(result),
-          x_(2 * model.degrees_of_freedom()) {
+          x_(model.state_size()) {
         auto track = [](Quantity q, Peak& p, bool minimum = false) { return ExtremeTracker{q, minimum, &p}; };
         whole_run_ = {track(Quantity::hook_rope_angle, result.hook_rope_angle),
                       track(Quantity::load_angle, result.load_angle),
@@ -62,7 +62,7 @@ public:
     void on_step(const DenseStep& step) override {
         // The first sample is the last one of the previous step, unless a break
         // (where the support's acceleration may jump) lies between them.
-        const bool continues = step_seen_ && step.interval == last_interval_ && step.t_begin == times_.back();
+        const bool continues = step_seen_ && step.regime == last_regime_ && step.t_begin == times_.back();
         step_ = &step;
         if (continues) samples_[0] = samples_.back();
         for (int j = continues ? 1 : 0; j <= samples_per_step; ++j) {
@@ -71,7 +71,7 @@ public:
         }
         times_[0] = step.t_begin;
         step_seen_ = true;
-        last_interval_ = step.interval;
+        last_regime_ = step.regime;
         for (ExtremeTracker& tracker : whole_run_) update(tracker);
         // The motion's end is a break, so a step lies wholly before or after it.
         if (step.t_begin >= residual_from_) {
@@ -86,7 +86,7 @@ public:
 private:
     Observation observe(double t) {
         step_->state_at(t, x_);
-        return model_.observe(t, step_->interval, x_);
+        return model_.observe(t, step_->regime, x_);
     }
     double value_at(double t, Quantity q) { return quantity_value(observe(t), q); }
 
@@ -165,7 +165,7 @@ private:
     std::vector<double> x_;
     const DenseStep* step_ = nullptr;
     bool step_seen_ = false;
-    std::size_t last_interval_ = 0;
+    Regime last_regime_;
     std::array<double, samples_per_step + 1> times_{};
     std::array<Observation, samples_per_step + 1> samples_{};
     std::array<ExtremeTracker, 8> whole_run_{};
@@ -173,11 +173,11 @@ private:
     long next_output_ = 0;
 };
 
-// Integration intervals: the motion's pieces, cut at the end time.
-std::vector<double> integration_breaks(const SupportMotion& motion, double end_time) {
+// Integration intervals: the support path's, cut at the end time.
+std::vector<double> integration_breaks(const SupportTrajectory& path, double end_time) {
     std::vector<double> breaks;
-    for (const MotionPiece& piece : motion.pieces()) {
-        if (piece.start < end_time) breaks.push_back(piece.start);
+    for (double start : path.breaks()) {
+        if (start < end_time) breaks.push_back(start);
     }
     breaks.push_back(end_time);
     return breaks;
@@ -192,9 +192,9 @@ SimulationResult simulate(const SwingModel& model, const SimulationRequest& requ
 SimulationResult simulate(const SwingModel& model, const SimulationRequest& request,
                           const IntegrateFunction& integrator) {
     SimulationResult result;
-    result.residual_from = std::min(model.motion().end_of_motion(), request.end_time);
+    result.residual_from = std::min(model.trajectory().end_of_motion(), request.end_time);
     Recorder recorder(model, request, result.residual_from, result);
-    const std::vector<double> breaks = integration_breaks(model.motion(), request.end_time);
+    const std::vector<double> breaks = integration_breaks(model.trajectory(), request.end_time);
     const std::vector<double> x0 = model.initial_state();
     result.stats = integrator(model, x0, breaks, request.integrator, recorder);
     return result;
