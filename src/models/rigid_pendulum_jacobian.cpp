@@ -1,6 +1,6 @@
 // The analytic Jacobian of the rigid planar two-link pendulum, kept apart
 // from the equations of motion as multibody codes keep their derivatives.
-// docs/model.md, "Jacobian": with M(q) q'' = r(q, q', a) and alpha = M^-1 r,
+// From the equations of motion of docs/model.md, M(q) q'' = r(q, q', a), alpha = M^-1 r:
 //   d alpha / d q_j    = M^-1 (d r / d q_j - (d M / d q_j) alpha)
 //   d alpha / d qdot_j = M^-1 d r / d qdot_j
 // and only M12 = m2 L1 L2 cos(theta1 - theta2) depends on q.

@@ -218,15 +218,36 @@ private:
             step_.x1 = x_;
             step_.f1 = f_;
             step_.regime = regime_;
-            if (events_ > 0 && locate_event()) {
-                const EventAction action = handle_event();
-                if (action == EventAction::stop) return false;
-                if (action == EventAction::restart) restart(t_stop, dt, event_index_);
-                continue;
-            }
-            sink_.on_step(step_);
+            const EventAction action = hand_on_step();
+            if (action == EventAction::stop) return false;
+            if (action == EventAction::restart) restart(t_stop, dt, event_index_);
         }
         return true;
+    }
+
+    // Hand the accepted step to the sink, cut at each event located in it. An
+    // event that only records splits the step and the search goes on in the
+    // rest (the solution is untouched); one that restarts or stops ends the
+    // step there, and the run goes on from the interpolated state.
+    EventAction hand_on_step() {
+        while (events_ > 0 && locate_event()) {
+            const double t_end = step_.t_end;
+            Vector x;
+            step_.state_at(event_time_, x);
+            step_.t_end = event_time_;
+            sink_.on_step(step_);
+            const EventAction action = handle_event(x);
+            if (action != EventAction::record) {
+                x_ = x;
+                t_ = event_time_;
+                return action;
+            }
+            step_.t_begin = event_time_;
+            step_.t_end = t_end;
+            update_sides(event_time_, x, event_index_);
+        }
+        sink_.on_step(step_);
+        return EventAction::record;
     }
 
     // Sides of the event functions at (t, x); the one just handled is left
@@ -289,12 +310,8 @@ private:
         return sign_of(value(bracket.first)) != side_[i] ? bracket.first : bracket.second;
     }
 
-    // Truncate the step at the event, hand it on, ask the system, restart.
-    EventAction handle_event() {
-        Vector x;
-        step_.state_at(event_time_, x);
-        step_.t_end = event_time_;
-        sink_.on_step(step_);
+    // Ask the system what the event at (event_time_, x) means, and tell the sink.
+    EventAction handle_event(const Vector& x) {
         EventRecord record;
         record.time = event_time_;
         record.index = event_index_;
@@ -305,13 +322,7 @@ private:
         record.after = after;
         ++stats_.events;
         regime_ = after;
-        x_ = x;
-        t_ = event_time_;
         sink_.on_event(record);
-        if (record.action == EventAction::record) {
-            rhs(x_, f_, t_);
-            update_sides(t_, x_, event_index_);
-        }
         return record.action;
     }
 
