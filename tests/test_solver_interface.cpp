@@ -10,6 +10,8 @@
 #include <numbers>
 #include <random>
 #include <stdexcept>
+#include <thread>
+#include <utility>
 #include <vector>
 
 #include "plumb/errors.hpp"
@@ -383,4 +385,35 @@ TEST_CASE("a scan of light hook blocks and short riggings after a rest runs to a
         }
     }
     CHECK(runs == 144);
+}
+
+TEST_CASE("many runs on two threads with their own workspaces give the serial results", "[integrator]") {
+    // Each thread's integrate() reuses its own workspace from run to run.
+    const RigidPendulumParameters p{650, 14000, 7.5, 1.6, 0.55, 9.80665};
+    const RigidPendulumModel model(p, SupportMotion::from_moves({{18, 0.6, 0.1, 0.1, 0.5, 0}}));
+    const std::vector<double> x0 = model.initial_state();
+    std::vector<double> breaks;
+    for (const MotionPiece& piece : model.motion().pieces()) breaks.push_back(piece.start);
+    breaks.push_back(breaks.back() + 20);
+    for (auto [method, runs] : {std::pair{IntegratorMethod::runge_kutta, 1000}, std::pair{IntegratorMethod::cvode_bdf, 40}}) {
+        INFO("method " << static_cast<int>(method));
+        IntegratorSettings settings;
+        settings.method = method;
+        EventLog serial;
+        integrate(model, x0, breaks, settings, serial);
+        std::vector<std::vector<double>> results(static_cast<std::size_t>(runs));
+        auto work = [&](std::size_t first) {
+            for (std::size_t i = first; i < results.size(); i += 2) {
+                EventLog log;
+                integrate(model, x0, breaks, settings, log);
+                results[i] = log.last_state;
+            }
+        };
+        std::thread a(work, 0), b(work, 1);
+        a.join();
+        b.join();
+        std::size_t identical = 0;
+        for (const auto& r : results) identical += r == serial.last_state ? 1 : 0;
+        CHECK(identical == results.size());
+    }
 }
