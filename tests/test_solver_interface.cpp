@@ -417,3 +417,34 @@ TEST_CASE("many runs on two threads with their own workspaces give the serial re
         CHECK(identical == results.size());
     }
 }
+
+namespace {
+// Six uncoupled oscillators q_i'' = -(i+1)^2 q_i: q_i = cos((i+1) t) from q = 1 at rest.
+struct SixOscillators final : DynamicSystem {
+    std::size_t state_size() const override { return 12; }
+    std::vector<StateComponent> state_components() const override { return {12, {"q", "m", 1e-13}}; }
+    std::size_t second_order_dof() const override { return 6; }
+    void derivatives(double, const Regime&, std::span<const double> x, std::span<double> dxdt) const override {
+        for (std::size_t i = 0; i < 6; ++i) {
+            dxdt[i] = x[6 + i];
+            dxdt[6 + i] = -static_cast<double>((i + 1) * (i + 1)) * x[i];
+        }
+    }
+};
+
+struct LastState final : StepSink {
+    std::vector<double> x = std::vector<double>(12);
+    void on_step(const DenseStep& s) override { s.state_at(s.t_end, x); }
+};
+}  // namespace
+
+TEST_CASE("the fixed-size integrator runs six degrees of freedom", "[integrator]") {
+    // q_i = cos((i+1) t) (any ODE text).
+    SixOscillators system;
+    std::vector<double> x0(12, 0.0);
+    std::fill(x0.begin(), x0.begin() + 6, 1.0);
+    const std::vector<double> breaks = {0, 1, 3};
+    LastState last;
+    integrate(system, x0, breaks, tight(IntegratorMethod::runge_kutta), last);
+    for (std::size_t i = 0; i < 6; ++i) CHECK(std::fabs(last.x[i] - std::cos((i + 1) * 3.0)) < 1e-8);
+}

@@ -124,7 +124,11 @@ int event_functions(double t, N_Vector y, double* g, void* user_data) {
 }
 
 void keep_error_message(int, const char*, const char*, char* message, void* user_data) {
-    static_cast<CallbackData*>(user_data)->last_message = message;
+    try {
+        static_cast<CallbackData*>(user_data)->last_message = message;
+    } catch (...) {
+        // Out of memory for the text: the flag name alone is reported.
+    }
 }
 
 class CvodeDenseStep final : public DenseStep {
