@@ -61,22 +61,22 @@ public:
     Stepper& stepper;
 };
 
-IntegrationStats integrate_dopri5(const SecondOrderSystem& system, std::span<const double> x0,
+IntegrationStats integrate_dopri5(const DynamicSystem& system, std::span<const double> x0,
                                   std::span<const double> breaks, const IntegratorSettings& settings,
                                   StepSink& sink) {
-    auto stepper = odeint::make_dense_output(settings.absolute_tolerance, settings.relative_tolerance,
+    auto stepper = odeint::make_dense_output(settings.absolute_tolerance.value_or(1e-10), settings.relative_tolerance,
                                              odeint::runge_kutta_dopri5<State>());
     IntegrationStats stats;
-    std::size_t interval = 0;
+    Regime regime;
     auto rhs = [&](const State& x, State& dxdt, double t) {
         ++stats.rhs_evaluations;
-        system.derivatives(t, interval, x, dxdt);
+        system.derivatives(t, regime, x, dxdt);
     };
     State x;
     std::copy(x0.begin(), x0.end(), x.begin());
     Dopri5Step step(stepper);
     double dt = 0.01;
-    for (interval = 0; interval + 1 < breaks.size(); ++interval) {
+    for (std::size_t& interval = regime.interval; interval + 1 < breaks.size(); ++interval) {
         const double t_stop = breaks[interval + 1];
         stepper.initialize(x, breaks[interval], std::min(dt, t_stop - breaks[interval]));
         while (stepper.current_time() < t_stop) {
@@ -86,7 +86,7 @@ IntegrationStats integrate_dopri5(const SecondOrderSystem& system, std::span<con
             ++stats.steps;
             step.t_begin = t0;
             step.t_end = std::min(t1, t_stop);
-            step.interval = interval;
+            step.regime = regime;
             sink.on_step(step);
             if (t_stop - t1 < 1e-12 * std::max(1.0, t_stop)) break;
         }

@@ -15,30 +15,39 @@ using namespace plumb;
 
 namespace {
 
-struct Oscillator final : SecondOrderSystem {
-    std::size_t degrees_of_freedom() const override { return 1; }
-    void derivatives(double, std::size_t, std::span<const double> x, std::span<double> dxdt) const override {
+// The state components of a test system: every one with the same tolerance.
+std::vector<StateComponent> components(std::size_t n) { return std::vector<StateComponent>(n, {"x", "1", 1e-12}); }
+
+struct Oscillator final : DynamicSystem {
+    std::size_t state_size() const override { return 2; }
+    std::vector<StateComponent> state_components() const override { return components(2); }
+    std::size_t second_order_dof() const override { return 1; }
+    void derivatives(double, const Regime&, std::span<const double> x, std::span<double> dxdt) const override {
         dxdt[0] = x[1];
         dxdt[1] = -x[0];
     }
 };
 
 // Two uncoupled coordinates so the fixed-size integrator (2 degrees of freedom) runs it.
-struct PiecewiseForcing final : SecondOrderSystem {
+struct PiecewiseForcing final : DynamicSystem {
     std::vector<double> forcing;  // u_k on interval k
-    std::size_t degrees_of_freedom() const override { return 2; }
-    void derivatives(double, std::size_t k, std::span<const double> x, std::span<double> dxdt) const override {
+    std::size_t state_size() const override { return 4; }
+    std::vector<StateComponent> state_components() const override { return components(4); }
+    std::size_t second_order_dof() const override { return 2; }
+    void derivatives(double, const Regime& r, std::span<const double> x, std::span<double> dxdt) const override {
         dxdt[0] = x[2];
         dxdt[1] = x[3];
-        dxdt[2] = forcing[k];
-        dxdt[3] = -forcing[k];
+        dxdt[2] = forcing[r.interval];
+        dxdt[3] = -forcing[r.interval];
     }
 };
 
 // Its derivatives turn non-finite after t = 1 s.
-struct BlowsUp final : SecondOrderSystem {
-    std::size_t degrees_of_freedom() const override { return 2; }
-    void derivatives(double t, std::size_t, std::span<const double> x, std::span<double> dxdt) const override {
+struct BlowsUp final : DynamicSystem {
+    std::size_t state_size() const override { return 4; }
+    std::vector<StateComponent> state_components() const override { return components(4); }
+    std::size_t second_order_dof() const override { return 2; }
+    void derivatives(double t, const Regime&, std::span<const double> x, std::span<double> dxdt) const override {
         const double bad = t > 1.0 ? std::numeric_limits<double>::quiet_NaN() : 0.0;
         dxdt[0] = x[2];
         dxdt[1] = x[3];

@@ -221,7 +221,7 @@ TEST_CASE("the equations of motion agree with the Newton-Euler reference at arbi
             // through the integrator's interface, state [theta1, theta2, omega1, omega2]
             const std::vector<double> x = {y[0], y[1], y[2], y[3]};
             std::vector<double> dxdt(4, 0.0);
-            model.derivatives(t, piece, x, dxdt);
+            model.derivatives(t, plumb::Regime{piece}, x, dxdt);
             CHECK(dxdt[0] == y[2]);
             CHECK(dxdt[1] == y[3]);
             CHECK_THAT(dxdt[2], Catch::Matchers::WithinAbs(u[0], 1e-12 * (1 + std::abs(u[0]))));

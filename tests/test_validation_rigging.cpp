@@ -28,7 +28,7 @@ TEST_CASE("at rest the hoist rope carries both weights and the rigging the load'
         CHECK_THAT(o.member(plumb::MemberId::rigging).tension, WithinRel(m2 * g0, 1e-12));
         // and the hanging state is an equilibrium [derived]
         std::vector<double> dxdt(4, 1.0);
-        model.derivatives(5.0, model.motion().pieces().size() - 1, rest, dxdt);
+        model.derivatives(5.0, plumb::Regime{model.motion().pieces().size() - 1}, rest, dxdt);
         for (const double v : dxdt) CHECK(std::abs(v) < 1e-12);
     }
 }
@@ -50,7 +50,7 @@ TEST_CASE("under steady acceleration the links hang along the effective gravity"
     const double theta = -std::atan(a / g0);
     const std::vector<double> x = {theta, theta, 0, 0};
     std::vector<double> dxdt(4, 1.0);
-    model.derivatives(t, piece, x, dxdt);
+    model.derivatives(t, plumb::Regime{piece}, x, dxdt);
     for (const double v : dxdt) CHECK(std::abs(v) < 1e-12);
     const auto o = model.observe(t, plumb::Regime{piece}, x);
     const double g_eff = std::hypot(g0, a);
@@ -58,7 +58,7 @@ TEST_CASE("under steady acceleration the links hang along the effective gravity"
     CHECK_THAT(o.member(plumb::MemberId::rigging).tension, WithinRel(m2 * g_eff, 1e-12));
     // The opposite angle is not an equilibrium: the sign of a matters
     const std::vector<double> wrong = {-theta, -theta, 0, 0};
-    model.derivatives(t, piece, wrong, dxdt);
+    model.derivatives(t, plumb::Regime{piece}, wrong, dxdt);
     CHECK(std::abs(dxdt[2]) > 0.01);
 }
 

@@ -19,18 +19,6 @@
 
 namespace plumb {
 
-// The integrator's view of a model: a second-order mechanical system whose state
-// is [q_0..q_{n-1}, qdot_0..qdot_{n-1}] with n = degrees_of_freedom(), and whose
-// right-hand side is smooth on each interval [breaks[k], breaks[k+1]].
-class SecondOrderSystem {
-public:
-    virtual ~SecondOrderSystem() = default;
-    virtual std::size_t degrees_of_freedom() const = 0;
-    // dxdt = f(t, x) on interval k (k selects the smooth piece even at its ends).
-    virtual void derivatives(double t, std::size_t interval, std::span<const double> x,
-                             std::span<double> dxdt) const = 0;
-};
-
 // What ends the validity of a model's predictions, if anything.
 enum class ValidityRule {
     always_valid,         // nothing in the run ends it (e.g. slack is a state the model handles)
@@ -46,11 +34,15 @@ struct ModelDescription {
     ValidityRule validity = ValidityRule::always_valid;
 };
 
-class SwingModel : public SecondOrderSystem {
+// What the integrator sees of a model is a DynamicSystem (system.hpp); the
+// interval of its Regime is an interval between the support path's breaks.
+class SwingModel : public DynamicSystem {
 public:
     virtual std::vector<double> initial_state() const = 0;
     virtual Observation observe(double t, const Regime& r, std::span<const double> x) const = 0;
-    // Interval k of the integration is piece k of this motion.
+    // The support's path; integration interval k is its interval k.
+    virtual const SupportTrajectory& trajectory() const = 0;
+    // The travel along x alone (the planar models' one axis).
     virtual const SupportMotion& motion() const = 0;
     virtual ModelDescription describe() const = 0;
 };
@@ -74,16 +66,22 @@ struct RigidPendulumParameters {
 
 class RigidPendulumModel final : public SwingModel {
 public:
+    // absolute_tolerance: of every state component (rad and rad/s).
     RigidPendulumModel(const RigidPendulumParameters& p, SupportMotion motion,
-                       double initial_angle = 0, double initial_rate = 0);
+                       double initial_angle = 0, double initial_rate = 0, double absolute_tolerance = 1e-10);
     static RigidPendulumModel from_job(const Job& job);
 
-    std::size_t degrees_of_freedom() const override { return 2; }
-    void derivatives(double t, std::size_t interval, std::span<const double> x,
-                     std::span<double> dxdt) const override;
+    // State [theta1, theta2, omega1, omega2]: hook rope and rigging angles and rates.
+    std::size_t state_size() const override { return 4; }
+    std::vector<StateComponent> state_components() const override;
+    std::size_t second_order_dof() const override { return 2; }
+    void derivatives(double t, const Regime& r, std::span<const double> x, std::span<double> dxdt) const override;
+    // Analytic, in rigid_pendulum_jacobian.cpp.
+    bool jacobian(double t, const Regime& r, std::span<const double> x, std::span<double> J) const override;
     std::vector<double> initial_state() const override;
     Observation observe(double t, const Regime& r, std::span<const double> x) const override;
-    const SupportMotion& motion() const override { return motion_; }
+    const SupportTrajectory& trajectory() const override { return path_; }
+    const SupportMotion& motion() const override { return path_.channel(SupportPath::x); }
     ModelDescription describe() const override;
 
     const RigidPendulumParameters& parameters() const { return p_; }
@@ -97,8 +95,9 @@ private:
     SwingModes linear_modes() const;
 
     RigidPendulumParameters p_;
-    SupportMotion motion_;
+    SupportPath path_;
     double initial_angle_, initial_rate_;
+    double absolute_tolerance_;
 };
 
 }  // namespace plumb

@@ -4,6 +4,7 @@
 #pragma once
 
 #include <algorithm>
+#include <array>
 #include <cstddef>
 #include <vector>
 
@@ -64,6 +65,8 @@ public:
     // Build from a speed history: speed linear between samples, at rest after the last.
     static SupportMotion from_speed_history(const std::vector<SpeedSample>& samples);
     static SupportMotion from_spec(const SupportMotionSpec& spec);
+    // No motion at all: one endless piece at rest at 0.
+    static SupportMotion at_rest();
 
     // The state at time t, evaluated on the piece that holds t (t < 0: at rest at 0).
     SupportState at(double t) const;
@@ -82,6 +85,40 @@ public:
 
 private:
     std::vector<MotionPiece> pieces_;
+};
+
+// The support path as channels, each a SupportMotion (pieces of constant jerk
+// with exact break times): travel along x and y, and the hoist (the rope paid
+// out: rope length = initial length + the channel's position). z is fixed.
+// The breaks of all channels are merged into one list; on interval k each
+// channel is on the piece that holds the interval's start, so a jump in any
+// channel is a break and every channel is smooth within an interval.
+class SupportPath final : public SupportTrajectory {
+public:
+    enum Channel : std::size_t { x = 0, y = 1, hoist = 2 };
+
+    SupportPath(SupportMotion x_travel, SupportMotion y_travel, SupportMotion hoist, double initial_rope_length);
+    // Today's planar jobs: travel along x, no y travel, no hoisting.
+    static SupportPath along_x(SupportMotion x_travel);
+
+    SupportKinematics at(double t, std::size_t interval) const override;
+    const std::vector<double>& breaks() const override { return breaks_; }
+    double end_of_motion() const override;
+
+    const SupportMotion& channel(Channel c) const { return channels_[c]; }
+    // One channel on interval k of the merged breaks (one table lookup: the hot path).
+    SupportState state(Channel c, double t, std::size_t interval) const {
+        return channels_[c].at(t, piece_[c][interval]);
+    }
+    double acceleration(Channel c, double t, std::size_t interval) const {
+        return channels_[c].acceleration(t, piece_[c][interval]);
+    }
+
+private:
+    std::array<SupportMotion, 3> channels_;
+    double initial_rope_length_;
+    std::vector<double> breaks_;
+    std::array<std::vector<std::size_t>, 3> piece_;  // piece_[c][k]: channel c's piece on interval k
 };
 
 }  // namespace plumb

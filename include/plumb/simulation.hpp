@@ -61,7 +61,7 @@ const SimulationResult& simulate(const SwingModel& model, const SimulationReques
 
 // The same with another integrator behind the same interface as integrate()
 // (the benchmark plugs in its baselines here).
-using IntegrateFunction = std::function<IntegrationStats(const SecondOrderSystem&, std::span<const double>,
+using IntegrateFunction = std::function<IntegrationStats(const DynamicSystem&, std::span<const double>,
                                                          std::span<const double>, const IntegratorSettings&,
                                                          StepSink&)>;
 SimulationResult simulate(const SwingModel& model, const SimulationRequest& request,

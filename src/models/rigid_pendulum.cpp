@@ -18,12 +18,20 @@ RigidPendulumParameters RigidPendulumParameters::from_job(const Job& job) {
 }
 
 RigidPendulumModel::RigidPendulumModel(const RigidPendulumParameters& p, SupportMotion motion,
-                                       double initial_angle, double initial_rate)
-    : p_(p), motion_(std::move(motion)), initial_angle_(initial_angle), initial_rate_(initial_rate) {}
+                                       double initial_angle, double initial_rate, double absolute_tolerance)
+    : p_(p), path_(SupportPath::along_x(std::move(motion))), initial_angle_(initial_angle),
+      initial_rate_(initial_rate), absolute_tolerance_(absolute_tolerance) {}
 
 RigidPendulumModel RigidPendulumModel::from_job(const Job& job) {
     return RigidPendulumModel(RigidPendulumParameters::from_job(job), SupportMotion::from_spec(job.motion),
-                              job.load.initial_angle, job.load.initial_rate);
+                              job.load.initial_angle, job.load.initial_rate, job.analysis.absolute_tolerance);
+}
+
+std::vector<StateComponent> RigidPendulumModel::state_components() const {
+    return {{"hook_rope_angle", "rad", absolute_tolerance_},
+            {"load_angle", "rad", absolute_tolerance_},
+            {"hook_rope_rate", "rad/s", absolute_tolerance_},
+            {"load_rate", "rad/s", absolute_tolerance_}};
 }
 
 std::vector<double> RigidPendulumModel::initial_state() const {
@@ -67,9 +75,9 @@ void RigidPendulumModel::angular_accelerations(double a, double theta1, double t
     solve_angular_accelerations(p_, a, LinkTrig(theta1, theta2), omega1, omega2, alpha1, alpha2);
 }
 
-void RigidPendulumModel::derivatives(double t, std::size_t interval, std::span<const double> x,
+void RigidPendulumModel::derivatives(double t, const Regime& r, std::span<const double> x,
                                      std::span<double> dxdt) const {
-    const double a = motion_.acceleration(t, interval);
+    const double a = path_.acceleration(SupportPath::x, t, r.interval);
     dxdt[0] = x[2];
     dxdt[1] = x[3];
     solve_angular_accelerations(p_, a, LinkTrig(x[0], x[1]), x[2], x[3], dxdt[2], dxdt[3]);
@@ -80,7 +88,7 @@ void RigidPendulumModel::derivatives(double t, std::size_t interval, std::span<c
 Observation RigidPendulumModel::observe(double t, const Regime& r, std::span<const double> x) const {
     const double L1 = p_.rope_length, L2 = p_.rigging_length, g = p_.gravity;
     const double th1 = x[0], th2 = x[1], w1 = x[2], w2 = x[3];
-    const SupportState support = motion_.at(t, r.interval);
+    const SupportState support = path_.state(SupportPath::x, t, r.interval);
     Observation o;
     o.time = t;
     o.support = support_along_x(support, L1);

@@ -188,4 +188,47 @@ double SupportMotion::peak_speed() const {
 
 double SupportMotion::final_position() const { return pieces_.back().at_start.position; }
 
+SupportMotion SupportMotion::at_rest() { return from_moves({}); }
+
+SupportPath::SupportPath(SupportMotion x_travel, SupportMotion y_travel, SupportMotion hoist,
+                         double initial_rope_length)
+    : channels_{std::move(x_travel), std::move(y_travel), std::move(hoist)},
+      initial_rope_length_(initial_rope_length) {
+    for (const SupportMotion& c : channels_) {
+        for (const MotionPiece& p : c.pieces()) breaks_.push_back(p.start);
+    }
+    std::sort(breaks_.begin(), breaks_.end());
+    breaks_.erase(std::unique(breaks_.begin(), breaks_.end()), breaks_.end());
+    for (std::size_t c = 0; c < channels_.size(); ++c) {
+        const std::vector<MotionPiece>& pieces = channels_[c].pieces();
+        std::size_t piece = 0;
+        for (double start : breaks_) {
+            while (piece + 1 < pieces.size() && pieces[piece + 1].start <= start) ++piece;
+            piece_[c].push_back(piece);
+        }
+    }
+}
+
+SupportPath SupportPath::along_x(SupportMotion x_travel) {
+    return SupportPath(std::move(x_travel), SupportMotion::at_rest(), SupportMotion::at_rest(), 0);
+}
+
+SupportKinematics SupportPath::at(double t, std::size_t interval) const {
+    const SupportState sx = state(x, t, interval), sy = state(y, t, interval), sh = state(hoist, t, interval);
+    SupportKinematics k;
+    k.position = {sx.position, sy.position, 0};
+    k.velocity = {sx.speed, sy.speed, 0};
+    k.acceleration = {sx.acceleration, sy.acceleration, 0};
+    k.rope_length = initial_rope_length_ + sh.position;
+    k.rope_speed = sh.speed;
+    k.rope_acceleration = sh.acceleration;
+    return k;
+}
+
+double SupportPath::end_of_motion() const {
+    double end = 0;
+    for (const SupportMotion& c : channels_) end = std::max(end, c.end_of_motion());
+    return end;
+}
+
 }  // namespace plumb

@@ -75,7 +75,7 @@ public:
         : model_(model), request_(request), residual_from_(residual_from), result_(result),
           x_(buffers.x), times_(buffers.times), samples_(buffers.samples), values_(buffers.values),
           recorded_(buffers.recorded), whole_run_(buffers.whole_run), residual_(buffers.residual) {
-        x_.resize(2 * model.degrees_of_freedom());
+        x_.resize(model.state_size());
         for (ExtremeTracker& t : whole_run_) t.seen = false;
         for (ExtremeTracker& t : residual_) t.seen = false;
         result.first_crossing.assign(request.watch.size(), std::nullopt);
@@ -84,7 +84,7 @@ public:
     void on_step(const DenseStep& step) override {
         // The first sample is the last one of the previous step, unless a break
         // (where the support's acceleration may jump) lies between them.
-        const Regime regime{step.interval};  // the step's regime: the one place that builds it
+        const Regime& regime = step.regime;
         const bool continues = step_seen_ && regime == regime_ && step.t_begin == times_.back();
         step_ = &step;
         regime_ = regime;
@@ -210,11 +210,11 @@ private:
     long next_output_ = 0;
 };
 
-// Integration intervals: the motion's pieces, cut at the end time.
-void integration_breaks(const SupportMotion& motion, double end_time, std::vector<double>& breaks) {
+// Integration intervals: the support path's, cut at the end time.
+void integration_breaks(const SupportTrajectory& path, double end_time, std::vector<double>& breaks) {
     breaks.clear();
-    for (const MotionPiece& piece : motion.pieces()) {
-        if (piece.start < end_time) breaks.push_back(piece.start);
+    for (double start : path.breaks()) {
+        if (start < end_time) breaks.push_back(start);
     }
     breaks.push_back(end_time);
 }
@@ -230,9 +230,9 @@ const SimulationResult& run_simulation(const SwingModel& model, const Simulation
     result.residual = {};
     result.trace.clear();
     result.stats = {};
-    result.residual_from = std::min(model.motion().end_of_motion(), request.end_time);
+    result.residual_from = std::min(model.trajectory().end_of_motion(), request.end_time);
     Recorder recorder(model, request, result.residual_from, result, buffers);
-    integration_breaks(model.motion(), request.end_time, buffers.breaks);
+    integration_breaks(model.trajectory(), request.end_time, buffers.breaks);
     const std::vector<double> initial = model.initial_state();
     buffers.x0.assign(initial.begin(), initial.end());
     result.stats = integrator(model, buffers.x0, buffers.breaks, request.integrator, recorder);

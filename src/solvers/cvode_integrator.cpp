@@ -1,7 +1,9 @@
 // SUNDIALS CVODE behind RAII owners, set up in the order of SUNDIALS' own C++
-// examples: context, vector, solver memory, init, tolerances, user data,
+// examples: context, vectors, solver memory, init, tolerances, user data,
 // matrix, linear solver. Every return code is checked; a failure becomes a
-// NumericalError with the time reached.
+// NumericalError with the time reached. No exception crosses a C callback:
+// each callback catches everything, keeps it and returns SUNDIALS' error
+// code; the exception is rethrown once CVODE has returned.
 #include <cvode/cvode.h>
 #include <nvector/nvector_serial.h>
 #include <sunlinsol/sunlinsol_dense.h>
@@ -10,12 +12,14 @@
 #include <algorithm>
 #include <cmath>
 #include <cstdlib>
+#include <exception>
 #include <string>
 
 #include "integrators_impl.hpp"
 #include "plumb/errors.hpp"
 
-namespace plumb::detail {
+namespace plumb {
+namespace detail {
 namespace {
 
 // Owns one SUNDIALS object: made by a SUNDIALS constructor (checked for null),
@@ -47,38 +51,84 @@ SUNContext new_context() {
     return ctx;
 }
 
-// What the C callbacks need: the system, the interval being integrated, the
-// last message CVODE reported (instead of letting it print to stderr).
-struct CallbackData {
-    const SecondOrderSystem* system;
-    std::size_t interval = 0;
-    std::size_t size = 0;
-    std::string last_message;
-};
-
-int right_hand_side(double t, N_Vector y, N_Vector ydot, void* user_data) {
-    auto* data = static_cast<CallbackData*>(user_data);
-    const double* x = N_VGetArrayPointer(y);
-    for (std::size_t i = 0; i < data->size; ++i) {
-        if (!std::isfinite(x[i])) return 1;  // recoverable: CVODE retries with a smaller step
-    }
-    double* dxdt = N_VGetArrayPointer(ydot);
-    data->system->derivatives(t, data->interval, {x, data->size}, {dxdt, data->size});
-    for (std::size_t i = 0; i < data->size; ++i) {
-        if (!std::isfinite(dxdt[i])) return 1;
-    }
-    return 0;
-}
-
-void keep_error_message(int, const char*, const char*, char* message, void* user_data) {
-    static_cast<CallbackData*>(user_data)->last_message = message;
-}
-
 std::string flag_name(int flag) {
     char* name = CVodeGetReturnFlagName(flag);
     std::string text = name ? name : "unknown flag";
     std::free(name);
     return text;
+}
+
+}  // namespace
+
+// What the C callbacks need: the system, the regime being integrated, the
+// first exception a callback caught, and the last message CVODE reported
+// (instead of letting it print to stderr).
+struct CallbackData {
+    const DynamicSystem* system = nullptr;
+    Regime regime;
+    std::size_t size = 0;
+    std::vector<double> jacobian;  // row-major, size^2
+    std::exception_ptr error;
+    std::string last_message;
+};
+
+namespace {
+
+// Run a callback's body; an exception is kept for the caller and CVODE gets
+// an unrecoverable failure code.
+template <class Body>
+int guarded(void* user_data, Body&& body) {
+    auto* data = static_cast<CallbackData*>(user_data);
+    try {
+        return body(*data);
+    } catch (...) {
+        if (!data->error) data->error = std::current_exception();
+        return -1;
+    }
+}
+
+bool all_finite(const double* x, std::size_t n) {
+    return std::all_of(x, x + n, [](double v) { return std::isfinite(v); });
+}
+
+int right_hand_side(double t, N_Vector y, N_Vector ydot, void* user_data) {
+    return guarded(user_data, [&](CallbackData& data) {
+        const double* x = N_VGetArrayPointer(y);
+        if (!all_finite(x, data.size)) return 1;  // recoverable: CVODE retries with a smaller step
+        double* dxdt = N_VGetArrayPointer(ydot);
+        data.system->derivatives(t, data.regime, {x, data.size}, {dxdt, data.size});
+        return all_finite(dxdt, data.size) ? 0 : 1;
+    });
+}
+
+int jacobian(double t, N_Vector y, N_Vector, SUNMatrix J, void* user_data, N_Vector, N_Vector, N_Vector) {
+    return guarded(user_data, [&](CallbackData& data) {
+        const double* x = N_VGetArrayPointer(y);
+        const std::size_t n = data.size;
+        if (!data.system->jacobian(t, data.regime, {x, n}, data.jacobian)) return -1;
+        for (std::size_t i = 0; i < n; ++i) {
+            for (std::size_t j = 0; j < n; ++j) {
+                SM_ELEMENT_D(J, static_cast<sunindextype>(i), static_cast<sunindextype>(j)) = data.jacobian[i * n + j];
+            }
+        }
+        return all_finite(data.jacobian.data(), n * n) ? 0 : 1;
+    });
+}
+
+int event_functions(double t, N_Vector y, double* g, void* user_data) {
+    return guarded(user_data, [&](CallbackData& data) {
+        const double* x = N_VGetArrayPointer(y);
+        data.system->events(t, data.regime, {x, data.size}, {g, data.system->event_count()});
+        return 0;
+    });
+}
+
+void keep_error_message(int, const char*, const char*, char* message, void* user_data) {
+    try {
+        static_cast<CallbackData*>(user_data)->last_message = message;
+    } catch (...) {
+        // Out of memory for the text: the flag name alone is reported.
+    }
 }
 
 class CvodeDenseStep final : public DenseStep {
@@ -99,85 +149,217 @@ private:
 
 }  // namespace
 
-IntegrationStats integrate_cvode(const SecondOrderSystem& system, std::span<const double> x0,
-                                 std::span<const double> breaks, const IntegratorSettings& settings,
-                                 StepSink& sink) {
-    const auto n = static_cast<sunindextype>(x0.size());
-    CallbackData data{&system, 0, x0.size(), {}};
-    double t = breaks.front();
-    auto check = [&](int flag, const char* call) {
+// Everything CVODE needs for one state size and method, made once and reused
+// by every run of that size and method (CVodeReInit starts a new run).
+struct CvodeWorkspace {
+    CvodeWorkspace(std::size_t n, IntegratorMethod m)
+        : size(n), method(m), context(new_context(), "SUNContext_Create"),
+          y(N_VNew_Serial(static_cast<sunindextype>(n), context.get()), "N_VNew_Serial"),
+          interpolated(N_VNew_Serial(static_cast<sunindextype>(n), context.get()), "N_VNew_Serial"),
+          tolerance(N_VNew_Serial(static_cast<sunindextype>(n), context.get()), "N_VNew_Serial"),
+          cvode(CVodeCreate(m == IntegratorMethod::cvode_bdf ? CV_BDF : CV_ADAMS, context.get()), "CVodeCreate"),
+          matrix(SUNDenseMatrix(static_cast<sunindextype>(n), static_cast<sunindextype>(n), context.get()),
+                 "SUNDenseMatrix"),
+          // Adams with CVODE's default Newton iteration needs a linear solver too.
+          solver(SUNLinSol_Dense(y.get(), matrix.get(), context.get()), "SUNLinSol_Dense"),
+          step(cvode.get(), interpolated.get(), n) {
+        data.size = n;
+        data.jacobian.resize(n * n);
+    }
+
+    std::size_t size;
+    IntegratorMethod method;
+    SundialsContext context;
+    SerialVector y, interpolated, tolerance;
+    CvodeMemory cvode;
+    DenseMatrix matrix;
+    DenseLinearSolver solver;
+    CvodeDenseStep step;
+    CallbackData data;
+    std::vector<int> roots;
+    bool initialised = false;
+};
+
+void prepare_cvode_workspace(std::unique_ptr<CvodeWorkspace>& workspace, std::size_t size, IntegratorMethod method) {
+    if (!workspace || workspace->size != size || workspace->method != method) {
+        workspace.reset();  // free the old one first
+        workspace = std::make_unique<CvodeWorkspace>(size, method);
+    }
+}
+
+namespace {
+
+// One run on a workspace: the loop over intervals and events.
+class CvodeRun {
+public:
+    CvodeRun(CvodeWorkspace& w, const DynamicSystem& system, const IntegratorSettings& settings, StepSink& sink)
+        : w_(w), mem_(w.cvode.get()), settings_(settings), sink_(sink), events_(system.event_count()) {
+        w_.data.system = &system;
+        w_.data.error = nullptr;
+        w_.data.last_message.clear();
+        w_.roots.resize(events_);
+    }
+
+    IntegrationStats run(std::span<const double> x0, std::span<const double> breaks,
+                         const std::vector<double>& atol) {
+        const DynamicSystem& system = *w_.data.system;
+        t_ = breaks.front();
+        std::copy(x0.begin(), x0.end(), N_VGetArrayPointer(w_.y.get()));
+        w_.data.regime = Regime{0, system.initial_mode(x0)};
+        if (!w_.initialised) {
+            check(CVodeSetErrHandlerFn(mem_, keep_error_message, &w_.data), "CVodeSetErrHandlerFn");
+            check(CVodeInit(mem_, right_hand_side, t_, w_.y.get()), "CVodeInit");
+            check(CVodeSetUserData(mem_, &w_.data), "CVodeSetUserData");
+            check(CVodeSetLinearSolver(mem_, w_.solver.get(), w_.matrix.get()), "CVodeSetLinearSolver");
+            w_.initialised = true;
+        } else {
+            check(CVodeReInit(mem_, t_, w_.y.get()), "CVodeReInit");
+        }
+        set_tolerances(atol);
+        // The analytic Jacobian when the system has one (asked once, at the
+        // start); otherwise CVODE's own difference quotients.
+        const bool analytic = system.jacobian(t_, w_.data.regime, x0, w_.data.jacobian);
+        check(CVodeSetJacFn(mem_, analytic ? jacobian : nullptr), "CVodeSetJacFn");
+        check(CVodeRootInit(mem_, static_cast<int>(events_), events_ > 0 ? event_functions : nullptr), "CVodeRootInit");
+
+        for (std::size_t k = 0; k + 1 < breaks.size(); ++k) {
+            w_.data.regime.interval = k;
+            if (k > 0) reinit();  // restart at the break
+            if (!integrate_to(breaks[k + 1])) break;
+            t_ = breaks[k + 1];
+        }
+        add_counters();
+        return stats_;
+    }
+
+    double time_reached() const { return t_; }
+
+private:
+    void check(int flag, const char* call) {
+        if (w_.data.error) rethrow_from_system(w_.data.error, t_);
         if (flag < 0) {
             std::string message = std::string(call) + " returned " + flag_name(flag);
-            if (!data.last_message.empty()) message += ": " + data.last_message;
-            throw NumericalError(message, t);
+            if (!w_.data.last_message.empty()) message += ": " + w_.data.last_message;
+            throw NumericalError(message, t_);
         }
-    };
+    }
 
-    const SundialsContext context(new_context(), "SUNContext_Create");
-    const SerialVector y(N_VNew_Serial(n, context.get()), "N_VNew_Serial");
-    const SerialVector interpolated(N_VNew_Serial(n, context.get()), "N_VNew_Serial");
-    std::copy(x0.begin(), x0.end(), N_VGetArrayPointer(y.get()));
-    const int method = settings.method == IntegratorMethod::cvode_bdf ? CV_BDF : CV_ADAMS;
-    const CvodeMemory cvode(CVodeCreate(method, context.get()), "CVodeCreate");
-    check(CVodeSetErrHandlerFn(cvode.get(), keep_error_message, &data), "CVodeSetErrHandlerFn");
-    check(CVodeInit(cvode.get(), right_hand_side, t, y.get()), "CVodeInit");
-    check(CVodeSStolerances(cvode.get(), settings.relative_tolerance, settings.absolute_tolerance),
-          "CVodeSStolerances");
-    check(CVodeSetUserData(cvode.get(), &data), "CVodeSetUserData");
-    const DenseMatrix jacobian(SUNDenseMatrix(n, n, context.get()), "SUNDenseMatrix");
-    // Adams with CVODE's default Newton iteration needs a linear solver too.
-    const DenseLinearSolver solver(SUNLinSol_Dense(y.get(), jacobian.get(), context.get()), "SUNLinSol_Dense");
-    check(CVodeSetLinearSolver(cvode.get(), solver.get(), jacobian.get()), "CVodeSetLinearSolver");
-
-    IntegrationStats stats;
-    CvodeDenseStep step(cvode.get(), interpolated.get(), x0.size());
-    auto configure = [&](double t_stop) {
-        // CVodeReInit clears these, so they are set again for every interval.
-        check(CVodeSetMaxNumSteps(cvode.get(), 1'000'000), "CVodeSetMaxNumSteps");
-        if (std::isfinite(settings.max_step)) check(CVodeSetMaxStep(cvode.get(), settings.max_step), "CVodeSetMaxStep");
-        check(CVodeSetStopTime(cvode.get(), t_stop), "CVodeSetStopTime");
-    };
-    auto add_counters = [&] {
-        long steps = 0, evaluations = 0, test_failures = 0;
-        check(CVodeGetNumSteps(cvode.get(), &steps), "CVodeGetNumSteps");
-        check(CVodeGetNumRhsEvals(cvode.get(), &evaluations), "CVodeGetNumRhsEvals");
-        check(CVodeGetNumErrTestFails(cvode.get(), &test_failures), "CVodeGetNumErrTestFails");
-        stats.steps += steps;
-        stats.rhs_evaluations += evaluations;
-        stats.rejected_steps += test_failures;
-    };
-
-    for (std::size_t k = 0; k + 1 < breaks.size(); ++k) {
-        data.interval = k;
-        const double t_stop = breaks[k + 1];
-        if (k > 0) {
-            add_counters();
-            check(CVodeReInit(cvode.get(), t, y.get()), "CVodeReInit");  // restart at the break
+    void set_tolerances(const std::vector<double>& atol) {
+        const bool one_value = std::all_of(atol.begin(), atol.end(), [&](double a) { return a == atol.front(); });
+        if (one_value) {
+            check(CVodeSStolerances(mem_, settings_.relative_tolerance, atol.front()), "CVodeSStolerances");
+        } else {
+            std::copy(atol.begin(), atol.end(), N_VGetArrayPointer(w_.tolerance.get()));
+            check(CVodeSVtolerances(mem_, settings_.relative_tolerance, w_.tolerance.get()), "CVodeSVtolerances");
         }
-        configure(t_stop);
-        ++stats.restarts;
+    }
+
+    void reinit() {
+        add_counters();
+        check(CVodeReInit(mem_, t_, w_.y.get()), "CVodeReInit");
+    }
+
+    // Returns false when an event stopped the run.
+    bool integrate_to(double t_stop) {
+        // Set for every interval: the step limits and the stop time.
+        check(CVodeSetMaxNumSteps(mem_, 1'000'000), "CVodeSetMaxNumSteps");
+        check(CVodeSetMaxStep(mem_, std::isfinite(settings_.max_step) ? settings_.max_step : 0.0), "CVodeSetMaxStep");
+        check(CVodeSetStopTime(mem_, t_stop), "CVodeSetStopTime");
+        ++stats_.restarts;
         int tiny_steps_in_a_row = 0;
-        while (t < t_stop) {
-            const double t_before = t;
-            check(CVode(cvode.get(), t_stop, y.get(), &t, CV_ONE_STEP), "CVode");
+        while (t_ < t_stop) {
+            if (++steps_taken_ > settings_.max_steps) throw NumericalError(step_cap_message(settings_.max_steps), t_);
+            const double t_before = t_;
+            const int flag = CVode(mem_, t_stop, w_.y.get(), &t_, CV_ONE_STEP);
+            if (flag < 0) {
+                // CVODE leaves t at its start on failure: report how far it got.
+                double reached = t_before;
+                if (CVodeGetCurrentTime(mem_, &reached) == CV_SUCCESS) t_ = std::max(t_before, reached);
+            }
+            check(flag, "CVode");
             // One-step mode has no step budget per call: stop a solver that only
             // creeps towards a point it cannot pass (a singularity, say).
-            if (t - t_before < 1e-12 * std::max(1.0, std::fabs(t))) {
+            if (t_ - t_before < 1e-12 * std::max(1.0, std::fabs(t_))) {
                 if (++tiny_steps_in_a_row > 1000) {
-                    throw NumericalError("CVODE cannot get past this time (step size below 1e-12 s)", t);
+                    throw NumericalError("CVODE cannot get past this time (step size below 1e-12 s)", t_);
                 }
             } else {
                 tiny_steps_in_a_row = 0;
             }
-            step.t_begin = t_before;
-            step.t_end = t;
-            step.interval = k;
-            sink.on_step(step);
+            w_.step.t_begin = t_before;
+            w_.step.t_end = t_;
+            w_.step.regime = w_.data.regime;
+            sink_.on_step(w_.step);
+            if (flag == CV_ROOT_RETURN && !handle_event(t_stop)) return false;
         }
-        t = t_stop;
+        return true;
     }
-    add_counters();
-    return stats;
+
+    // At a root CVODE has found: ask the system, restart when it says so.
+    bool handle_event(double t_stop) {
+        check(CVodeGetRootInfo(mem_, w_.roots.data()), "CVodeGetRootInfo");
+        const auto found = std::find_if(w_.roots.begin(), w_.roots.end(), [](int r) { return r != 0; });
+        if (found == w_.roots.end()) return true;
+        EventRecord record;
+        record.time = t_;
+        record.index = static_cast<std::size_t>(found - w_.roots.begin());
+        record.direction = *found > 0 ? 1 : -1;
+        record.before = w_.data.regime;
+        Regime after = w_.data.regime;
+        const double* x = N_VGetArrayPointer(w_.y.get());
+        record.action = w_.data.system->on_event(t_, {x, w_.data.size}, record.index, record.direction, after);
+        record.after = after;
+        ++stats_.events;
+        w_.data.regime = after;
+        sink_.on_event(record);
+        if (record.action == EventAction::stop) return false;
+        if (record.action == EventAction::restart) {
+            reinit();
+            check(CVodeSetStopTime(mem_, t_stop), "CVodeSetStopTime");
+            ++stats_.restarts;
+        }
+        return true;
+    }
+
+    void add_counters() {
+        long steps = 0, evaluations = 0, test_failures = 0;
+        check(CVodeGetNumSteps(mem_, &steps), "CVodeGetNumSteps");
+        check(CVodeGetNumRhsEvals(mem_, &evaluations), "CVodeGetNumRhsEvals");
+        check(CVodeGetNumErrTestFails(mem_, &test_failures), "CVodeGetNumErrTestFails");
+        stats_.steps += steps;
+        stats_.rhs_evaluations += evaluations;
+        stats_.rejected_steps += test_failures;
+    }
+
+    CvodeWorkspace& w_;
+    void* mem_;
+    const IntegratorSettings& settings_;
+    StepSink& sink_;
+    std::size_t events_;
+    IntegrationStats stats_;
+    double t_ = 0;
+    long steps_taken_ = 0;
+};
+
+}  // namespace
+
+IntegrationStats integrate_cvode(CvodeWorkspace& workspace, const DynamicSystem& system, std::span<const double> x0,
+                                 std::span<const double> breaks, const IntegratorSettings& settings,
+                                 const std::vector<double>& absolute_tolerance, StepSink& sink) {
+    CvodeRun run(workspace, system, settings, sink);
+    try {
+        return run.run(x0, breaks, absolute_tolerance);
+    } catch (...) {
+        // An exception from the system (kept by a callback, or thrown by
+        // on_event) wins over the CVODE failure it caused.
+        if (workspace.data.error) rethrow_from_system(workspace.data.error, run.time_reached());
+        rethrow_from_system(std::current_exception(), run.time_reached());
+    }
 }
 
-}  // namespace plumb::detail
+}  // namespace detail
+
+Integrator::Integrator() = default;
+Integrator::~Integrator() = default;
+
+}  // namespace plumb

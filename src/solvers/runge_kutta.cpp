@@ -2,8 +2,10 @@
 // rigid model this beats CVODE several times over: CVODE's generic vector
 // operations cost more than the whole right-hand side (docs/benchmark.md).
 #include <array>
+#include <boost/math/tools/toms748_solve.hpp>
 #include <boost/numeric/odeint.hpp>
 #include <cmath>
+#include <limits>
 #include <string>
 
 #include "integrators_impl.hpp"
@@ -17,16 +19,21 @@ namespace odeint = boost::numeric::odeint;
 template <std::size_t Dof>
 using State = std::array<double, 2 * Dof>;
 
+constexpr double infinity = std::numeric_limits<double>::infinity();
+
 // A step with the quintic Hermite interpolant of each position q from
 // (q, q', q'') at both ends; the rate is its derivative. Error O(h^6) in q.
+// The interpolant spans [span_begin, span_end]; the step handed on may end
+// earlier (at an event).
 template <std::size_t Dof>
 class HermiteStep final : public DenseStep {
 public:
-    State<Dof> x0, f0, x1, f1;  // state and derivative at t_begin and t_end
+    State<Dof> x0, f0, x1, f1;  // state and derivative at span_begin and span_end
+    double span_begin = 0, span_end = 0;
 
     void state_at(double t, std::span<double> x) const override {
-        const double h = t_end - t_begin;
-        const double s = (t - t_begin) / h;
+        const double h = span_end - span_begin;
+        const double s = (t - span_begin) / h;
         const double s2 = s * s, s3 = s2 * s, s4 = s3 * s, s5 = s4 * s;
         // Quintic Hermite basis on [0, 1] and its derivative.
         const double h0 = 1 - 10 * s3 + 15 * s4 - 6 * s5, h1 = s - 6 * s3 + 8 * s4 - 3 * s5;
@@ -44,95 +51,333 @@ public:
     }
 };
 
-template <std::size_t Dof>
-bool all_finite(const State<Dof>& x) {
+// The error norm of Odeint's default checker (largest over the components of
+// |err_i| / (atol_i + rtol (|x_i| + |h| |f_i|))), with one absolute tolerance
+// per component; a non-finite error estimate is an infinite error, so a trial
+// step that produced a non-finite state is rejected and retried smaller.
+template <std::size_t N>
+class ComponentErrorChecker {
+public:
+    using value_type = double;
+    using algebra_type = odeint::array_algebra;
+    using operations_type = odeint::default_operations;
+
+    ComponentErrorChecker(const std::array<double, N>& absolute, double relative)
+        : absolute_(absolute), relative_(relative) {}
+
+    template <class State, class Deriv, class Err, class Time>
+    double error(algebra_type&, const State& x_old, const Deriv& dxdt_old, Err& x_err, Time dt) const {
+        const double step = std::abs(dt);
+        double worst = 0;
+        for (std::size_t i = 0; i < N; ++i) {
+            x_err[i] = std::abs(x_err[i]) / (absolute_[i] + relative_ * (std::abs(x_old[i]) + step * std::abs(dxdt_old[i])));
+            if (!(x_err[i] <= worst)) worst = std::isnan(x_err[i]) ? infinity : x_err[i];
+        }
+        return worst;
+    }
+
+private:
+    std::array<double, N> absolute_;
+    double relative_;
+};
+
+template <std::size_t N>
+bool all_finite(const std::array<double, N>& x) {
     for (double v : x) {
         if (!std::isfinite(v)) return false;
     }
     return true;
 }
 
+// Weighted root-mean-square norm with weights 1 / (atol_i + rtol |x_i|).
+template <std::size_t N>
+double weighted_norm(const std::array<double, N>& v, const std::array<double, N>& x, const std::array<double, N>& atol,
+                     double rtol) {
+    double sum = 0;
+    for (std::size_t i = 0; i < N; ++i) {
+        const double w = v[i] / (atol[i] + rtol * std::abs(x[i]));
+        sum += w * w;
+    }
+    return std::sqrt(sum / N);
+}
+
+// The first trial step after a start or restart, from the system's own
+// derivatives at that point: the starting step size rule of Hairer, Norsett
+// and Wanner, Solving Ordinary Differential Equations I, 2nd ed., II.4
+// (h ~ (0.01 / max(|f|, |f'|))^(1/(p+1)) in the weighted norm). It is tied to
+// the system at the restart, never to a step grown on an earlier interval.
+template <std::size_t N, class Rhs>
+double starting_step(Rhs& rhs, double t, const std::array<double, N>& x, const std::array<double, N>& f,
+                     const std::array<double, N>& atol, double rtol, int order) {
+    const double d0 = weighted_norm(x, x, atol, rtol), d1 = weighted_norm(f, x, atol, rtol);
+    const double h0 = (d0 < 1e-5 || d1 < 1e-5) ? 1e-6 : 0.01 * d0 / d1;
+    std::array<double, N> x1, f1, df;
+    for (std::size_t i = 0; i < N; ++i) x1[i] = x[i] + h0 * f[i];
+    rhs(x1, f1, t + h0);
+    for (std::size_t i = 0; i < N; ++i) df[i] = f1[i] - f[i];
+    const double d2 = weighted_norm(df, x, atol, rtol) / h0;
+    const double scale = std::max(d1, d2);
+    if (!std::isfinite(scale)) return h0;
+    return scale <= 1e-15 ? std::max(1e-6, h0 * 1e-3) : std::pow(0.01 / scale, 1.0 / (order + 1));
+}
+
+// Sign of an event function's value; 0 for an exact zero.
+int sign_of(double g) { return (g > 0) - (g < 0); }
+
 template <std::size_t Dof>
-IntegrationStats integrate_fixed(const SecondOrderSystem& system, std::span<const double> x0,
+class FixedSizeRun {
+public:
+    using Vector = State<Dof>;
+    static constexpr std::size_t N = 2 * Dof;
+    using Stepper = odeint::runge_kutta_fehlberg78<Vector>;
+    using Controlled = odeint::controlled_runge_kutta<Stepper, ComponentErrorChecker<N>>;
+
+    FixedSizeRun(const DynamicSystem& system, const IntegratorSettings& settings,
+                 const std::vector<double>& absolute_tolerance, StepSink& sink)
+        : system_(system), settings_(settings), sink_(sink), events_(system.event_count()),
+          controlled_(make_checker(absolute_tolerance, settings.relative_tolerance)) {
+        std::copy(absolute_tolerance.begin(), absolute_tolerance.end(), atol_.begin());
+        g_.resize(events_);
+        side_.resize(events_);
+    }
+
+    IntegrationStats run(std::span<const double> x0, std::span<const double> breaks) {
+        std::copy(x0.begin(), x0.end(), x_.begin());
+        regime_.mode = system_.initial_mode(x0);
+        double dt = 0;  // 0: the first interval has no step to carry over
+        for (std::size_t k = 0; k + 1 < breaks.size(); ++k) {
+            regime_.interval = k;
+            t_ = breaks[k];
+            if (!integrate_to(breaks[k + 1], dt)) break;
+        }
+        return stats_;
+    }
+
+    double time_reached() const { return t_; }
+
+private:
+    static ComponentErrorChecker<N> make_checker(const std::vector<double>& atol, double rtol) {
+        std::array<double, N> a{};
+        std::copy(atol.begin(), atol.end(), a.begin());
+        return ComponentErrorChecker<N>(a, rtol);
+    }
+
+    void rhs(const Vector& x, Vector& dxdt, double t) {
+        ++stats_.rhs_evaluations;
+        system_.derivatives(t, regime_, x, dxdt);
+    }
+
+    // (Re)start at t_: derivatives from the right, event sides, first step size.
+    void restart(double t_stop, double& dt, std::size_t just_handled = std::numeric_limits<std::size_t>::max()) {
+        ++stats_.restarts;
+        rhs(x_, f_, t_);  // right limit at the break: the input may jump here
+        auto f = [this](const Vector& x, Vector& dxdt, double t) { rhs(x, dxdt, t); };
+        const double first = starting_step<N>(f, t_, x_, f_, atol_, settings_.relative_tolerance, 8);
+        // The first interval keeps its historical start (a hundredth of a second
+        // or a quarter of the interval) when the system allows it.
+        dt = dt <= 0 ? std::min({0.01, (t_stop - t_) / 4, first}) : std::min(dt, first);
+        update_sides(t_, x_, just_handled);
+    }
+
+    // Returns false when an event stopped the run.
+    bool integrate_to(double t_stop, double& dt) {
+        restart(t_stop, dt);
+        int failures_in_a_row = 0;
+        while (t_ < t_stop) {
+            if (stats_.steps + stats_.rejected_steps >= settings_.max_steps) {
+                throw NumericalError(step_cap_message(settings_.max_steps), t_);
+            }
+            const bool last = dt >= t_stop - t_;
+            double h = std::min({dt, t_stop - t_, settings_.max_step});
+            Vector x_new = x_;
+            double t_new = t_;
+            auto f = [this](const Vector& x, Vector& dxdt, double t) { rhs(x, dxdt, t); };
+            const bool accepted = controlled_.try_step(f, x_new, f_, t_new, h) == odeint::success;
+            if (!accepted || !all_finite(x_new)) {
+                ++stats_.rejected_steps;
+                if (++failures_in_a_row > 200 || h < 1e-14 * std::max(1.0, std::fabs(t_))) {
+                    throw NumericalError("step size became too small (the equations may be singular)", t_);
+                }
+                // A failed step has h shrunk by the controller; a finite error
+                // with a non-finite state (not expected) is shrunk here.
+                dt = accepted ? (t_new - t_) * 0.2 : h;
+                continue;
+            }
+            failures_in_a_row = 0;
+            if (last || t_new > t_stop) t_new = t_stop;  // land on the break exactly
+            ++stats_.steps;
+            // Keep the controller's suggestion unless this was a step shortened to hit the break.
+            if (!last) dt = h;
+            step_.span_begin = step_.t_begin = t_;
+            step_.x0 = x_;
+            step_.f0 = f_;
+            x_ = x_new;
+            t_ = t_new;
+            rhs(x_, f_, t_);
+            step_.span_end = step_.t_end = t_;
+            step_.x1 = x_;
+            step_.f1 = f_;
+            step_.regime = regime_;
+            const EventAction action = hand_on_step();
+            if (action == EventAction::stop) return false;
+            if (action == EventAction::restart) restart(t_stop, dt, event_index_);
+        }
+        return true;
+    }
+
+    // Hand the accepted step to the sink, cut at each event located in it. An
+    // event that only records splits the step and the search goes on in the
+    // rest (the solution is untouched); one that restarts or stops ends the
+    // step there, and the run goes on from the interpolated state.
+    EventAction hand_on_step() {
+        while (events_ > 0 && locate_event()) {
+            const double t_end = step_.t_end;
+            Vector x;
+            step_.state_at(event_time_, x);
+            step_.t_end = event_time_;
+            sink_.on_step(step_);
+            const EventAction action = handle_event(x);
+            if (action != EventAction::record) {
+                x_ = x;
+                t_ = event_time_;
+                return action;
+            }
+            step_.t_begin = event_time_;
+            step_.t_end = t_end;
+            update_sides(event_time_, x, event_index_);
+        }
+        sink_.on_step(step_);
+        return EventAction::record;
+    }
+
+    // Sides of the event functions at (t, x); the one just handled is left
+    // undecided (its value is about zero) until it leaves zero.
+    void update_sides(double t, const Vector& x, std::size_t just_handled) {
+        if (events_ == 0) return;
+        system_.events(t, regime_, x, g_);
+        for (std::size_t i = 0; i < events_; ++i) side_[i] = i == just_handled ? 0 : sign_of(g_[i]);
+    }
+
+    // Look for a sign change of any event function on the step's interpolant,
+    // at a few points per step; locate the first to within 1e-13 s.
+    bool locate_event() {
+        constexpr int samples = 4;
+        Vector x;
+        double t_prev = step_.t_begin;
+        for (int j = 1; j <= samples; ++j) {
+            const double t = j == samples ? step_.t_end : step_.t_begin + (step_.t_end - step_.t_begin) * j / samples;
+            if (j == samples) x = step_.x1; else step_.state_at(t, x);
+            system_.events(t, regime_, x, g_);
+            double first = infinity;
+            for (std::size_t i = 0; i < events_; ++i) {
+                if (side_[i] != 0 && sign_of(g_[i]) != side_[i]) {
+                    const double root = locate(i, t_prev, t);
+                    if (root < first) {
+                        first = root;
+                        event_index_ = i;
+                    }
+                }
+            }
+            if (first < infinity) {
+                event_time_ = first;
+                return true;
+            }
+            for (std::size_t i = 0; i < events_; ++i) {
+                if (side_[i] == 0) side_[i] = sign_of(g_[i]);
+            }
+            t_prev = t;
+        }
+        return false;
+    }
+
+    // The crossing of g_i in [a, b] (g_i on its old side at a, not at b): the
+    // end of the final bracket on the new side, so g has crossed there.
+    double locate(std::size_t i, double a, double b) {
+        Vector x;
+        std::vector<double>& g = scratch_g_;
+        g.resize(events_);
+        auto value = [&](double t) {
+            step_.state_at(t, x);
+            system_.events(t, regime_, x, g);
+            return g[i];
+        };
+        const double ga = value(a), gb = value(b);
+        if (sign_of(ga) != side_[i]) return a;
+        if (gb == 0) return b;
+        auto close_enough = [](double lo, double hi) { return hi - lo <= std::max(1e-13, 4e-16 * std::fabs(hi)); };
+        std::uintmax_t iterations = 200;
+        const auto bracket = boost::math::tools::toms748_solve(value, a, b, ga, gb, close_enough, iterations);
+        return sign_of(value(bracket.first)) != side_[i] ? bracket.first : bracket.second;
+    }
+
+    // Ask the system what the event at (event_time_, x) means, and tell the sink.
+    EventAction handle_event(const Vector& x) {
+        EventRecord record;
+        record.time = event_time_;
+        record.index = event_index_;
+        record.direction = -side_[event_index_];
+        record.before = regime_;
+        Regime after = regime_;
+        record.action = system_.on_event(event_time_, x, event_index_, record.direction, after);
+        record.after = after;
+        ++stats_.events;
+        regime_ = after;
+        sink_.on_event(record);
+        return record.action;
+    }
+
+    const DynamicSystem& system_;
+    const IntegratorSettings& settings_;
+    StepSink& sink_;
+    const std::size_t events_;
+    std::array<double, N> atol_{};
+    Controlled controlled_;
+    IntegrationStats stats_;
+    Regime regime_;
+    double t_ = 0;
+    Vector x_{}, f_{};
+    HermiteStep<Dof> step_;
+    std::vector<double> g_, scratch_g_;
+    std::vector<int> side_;
+    double event_time_ = 0;
+    std::size_t event_index_ = 0;
+};
+
+template <std::size_t Dof>
+IntegrationStats integrate_fixed(const DynamicSystem& system, std::span<const double> x0,
                                  std::span<const double> breaks, const IntegratorSettings& settings,
-                                 StepSink& sink) {
-    using Stepper = odeint::runge_kutta_fehlberg78<State<Dof>>;
+                                 const std::vector<double>& absolute_tolerance, StepSink& sink) {
     // GCC 12 warns that odeint copies its not-yet-used scratch arrays here; they are
     // written before they are read.
 #pragma GCC diagnostic push
 #pragma GCC diagnostic ignored "-Wuninitialized"
 #pragma GCC diagnostic ignored "-Wmaybe-uninitialized"
-    auto stepper = odeint::make_controlled<Stepper>(settings.absolute_tolerance, settings.relative_tolerance);
+    FixedSizeRun<Dof> run(system, settings, absolute_tolerance, sink);
 #pragma GCC diagnostic pop
-
-    IntegrationStats stats;
-    std::size_t interval = 0;
-    auto rhs = [&](const State<Dof>& x, State<Dof>& dxdt, double t) {
-        ++stats.rhs_evaluations;
-        system.derivatives(t, interval, x, dxdt);
-    };
-
-    State<Dof> x;
-    std::copy(x0.begin(), x0.end(), x.begin());
-    HermiteStep<Dof> step;
-    double dt = 0;  // 0: choose a first step from the interval
-    for (interval = 0; interval + 1 < breaks.size(); ++interval) {
-        const double t_stop = breaks[interval + 1];
-        double t = breaks[interval];
-        ++stats.restarts;
-        State<Dof> f;
-        rhs(x, f, t);  // right limit at the break: the input may jump here
-        if (dt <= 0) dt = std::min(0.01, (t_stop - t) / 4);
-        int failures_in_a_row = 0;
-        while (t < t_stop) {
-            const bool last = dt >= t_stop - t;
-            double h = std::min({dt, t_stop - t, settings.max_step});
-            step.t_begin = t;
-            step.x0 = x;
-            step.f0 = f;
-            State<Dof> x_new = x;
-            double t_new = t;
-            if (stepper.try_step(rhs, x_new, f, t_new, h) == odeint::fail) {
-                ++stats.rejected_steps;
-                if (++failures_in_a_row > 200 || h < 1e-14 * std::max(1.0, std::fabs(t))) {
-                    throw NumericalError("step size became too small (the equations may be singular)", t);
-                }
-                dt = h;
-                continue;
-            }
-            failures_in_a_row = 0;
-            if (last || t_new > t_stop) t_new = t_stop;  // land on the break exactly
-            if (!all_finite<Dof>(x_new)) throw NumericalError("the state became non-finite", t);
-            ++stats.steps;
-            // Keep the controller's suggestion unless this was a step shortened to hit the break.
-            if (!last) dt = h;
-            x = x_new;
-            t = t_new;
-            rhs(x, f, t);
-            step.t_end = t;
-            step.x1 = x;
-            step.f1 = f;
-            step.interval = interval;
-            sink.on_step(step);
-        }
+    try {
+        return run.run(x0, breaks);
+    } catch (...) {
+        rethrow_from_system(std::current_exception(), run.time_reached());
     }
-    return stats;
 }
 
 }  // namespace
 
-IntegrationStats integrate_runge_kutta(const SecondOrderSystem& system, std::span<const double> x0,
+IntegrationStats integrate_runge_kutta(const DynamicSystem& system, std::span<const double> x0,
                                        std::span<const double> breaks, const IntegratorSettings& settings,
-                                       StepSink& sink) {
-    switch (system.degrees_of_freedom()) {
-        case 2:
-            return integrate_fixed<2>(system, x0, breaks, settings, sink);
-        default:
-            throw NumericalError("the runge-kutta integrator has no fixed-size state for " +
-                                     std::to_string(system.degrees_of_freedom()) +
-                                     " degrees of freedom; choose cvode-bdf",
-                                 breaks.front());
+                                       const std::vector<double>& absolute_tolerance, StepSink& sink) {
+    const std::size_t dof = system.second_order_dof();
+    if (dof > 0 && system.state_size() == 2 * dof) {
+        switch (dof) {
+            case 2: return integrate_fixed<2>(system, x0, breaks, settings, absolute_tolerance, sink);
+            case 6: return integrate_fixed<6>(system, x0, breaks, settings, absolute_tolerance, sink);
+            default: break;
+        }
     }
+    throw NumericalError("the runge-kutta integrator has no fixed-size state for this model (" +
+                             std::to_string(system.state_size()) + " state components, " + std::to_string(dof) +
+                             " degrees of freedom; it has 2 or 6); choose cvode-bdf",
+                         breaks.front());
 }
 
 }  // namespace plumb::detail
