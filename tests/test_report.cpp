@@ -13,6 +13,7 @@
 #include <nlohmann/json.hpp>
 
 #include "plumb/errors.hpp"
+#include "plumb/output_files.hpp"
 #include "plumb/report.hpp"
 #include "scratch_folder.hpp"
 

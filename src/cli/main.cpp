@@ -16,6 +16,7 @@
 #include "plumb/errors.hpp"
 #include "plumb/job_file.hpp"
 #include "plumb/modes.hpp"
+#include "plumb/output_files.hpp"
 #include "plumb/report.hpp"
 
 #ifndef PLUMB_VERSION
