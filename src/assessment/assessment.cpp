@@ -10,6 +10,7 @@
 
 #include "plumb/model.hpp"
 #include "plumb/rigging.hpp"
+#include "plumb/work_budget.hpp"
 
 namespace plumb {
 namespace {
@@ -134,6 +135,7 @@ LiftPrediction predict_lift(const Job& job, const std::vector<WatchLevel>& watch
     p.modes = linear_swing_modes(RigidPendulumParameters::from_job(job));
     p.end_of_motion = model->motion().end_of_motion();
     p.end_time = p.end_of_motion + job.analysis.duration_after.value_or(automatic_duration_after(p.modes));
+    check_work_budget(job, p.modes, p.end_time, output_step);
 
     SimulationRequest request;
     request.end_time = p.end_time;

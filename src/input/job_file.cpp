@@ -259,12 +259,14 @@ public:
         check_range(key, v, d, 0, false, inf, false);
     }
 
-    // A value beyond what any crane does: most likely a unit slip.
-    void check_plausible(std::string_view key, double v, Dimension d, double bound,
+    // A value outside what any crane does: most likely a unit slip, and a
+    // model the integrator cannot carry through (input_bounds.hpp).
+    void check_plausible(std::string_view key, double v, Dimension d, double low, double high,
                          std::string_view what) const {
-        if (v <= bound) return;
-        std::string problem = "implausible " + std::string(what) + " " + show(v, d) + " (more than " +
-                              show(bound, d) + "): check the units";
+        if (v >= low && v <= high) return;
+        std::string problem = "implausible " + std::string(what) + " " + show(v, d) +
+                              (v < low ? " (less than " + show(low, d) : " (more than " + show(high, d)) +
+                              "): check the units";
         const Entry* e = find(key);
         if (e != nullptr && e->value.IsScalar() && is_bare(e->value.Scalar()))
             problem += "; a number without a unit is taken as " + std::string(si_unit(d));
@@ -317,25 +319,26 @@ Move read_move(const Section& s) {
     m.distance = s.quantity("distance", Dimension::length);
     if (m.distance == 0)
         s.fail_at("distance", "must not be zero: a move travels some distance (negative to travel backwards)");
-    s.check_plausible("distance", std::fabs(m.distance), Dimension::length, max_move_distance, "move distance");
+    s.check_plausible("distance", std::fabs(m.distance), Dimension::length, min_move_distance, max_move_distance,
+                      "move distance");
 
     m.top_speed = s.quantity("top_speed", Dimension::speed);
     s.check_positive("top_speed", m.top_speed, Dimension::speed);
-    s.check_plausible("top_speed", m.top_speed, Dimension::speed, max_top_speed, "top speed");
+    s.check_plausible("top_speed", m.top_speed, Dimension::speed, min_top_speed, max_top_speed, "top speed");
 
     m.acceleration = s.quantity("acceleration", Dimension::acceleration);
     s.check_positive("acceleration", m.acceleration, Dimension::acceleration);
-    s.check_plausible("acceleration", m.acceleration, Dimension::acceleration, max_acceleration,
-                      "acceleration");
+    s.check_plausible("acceleration", m.acceleration, Dimension::acceleration, min_acceleration,
+                      max_acceleration, "acceleration");
 
     m.deceleration = s.optional_quantity("deceleration", Dimension::acceleration).value_or(m.acceleration);
     s.check_positive("deceleration", m.deceleration, Dimension::acceleration);
-    s.check_plausible("deceleration", m.deceleration, Dimension::acceleration, max_acceleration,
-                      "deceleration");
+    s.check_plausible("deceleration", m.deceleration, Dimension::acceleration, min_acceleration,
+                      max_acceleration, "deceleration");
 
     if (const auto jerk = s.optional_quantity("jerk", Dimension::jerk)) {
         s.check_positive("jerk", *jerk, Dimension::jerk);
-        s.check_plausible("jerk", *jerk, Dimension::jerk, max_jerk, "jerk");
+        s.check_plausible("jerk", *jerk, Dimension::jerk, min_jerk, max_jerk, "jerk");
         m.jerk = *jerk;
     }
 
@@ -378,6 +381,9 @@ void read_motion(const Section& s, Job& job) {
         s.fail_at(*moves, "expected a list of moves (each starting with '- distance:'), got " +
                               describe(moves->value));
     if (moves->value.size() == 0) s.fail_at(*moves, "the list of moves is empty; give at least one move");
+    if (moves->value.size() > max_moves)
+        s.fail_at(*moves, "more than " + std::to_string(max_moves) + " moves (" +
+                              std::to_string(moves->value.size()) + "); plan the lift's moves, not a shift");
     std::size_t index = 0;
     for (const YAML::Node& item : moves->value) {
         ++index;  // 1-based: moves[1] is the first move
@@ -403,19 +409,26 @@ void read_motion(const Section& s, Job& job) {
 void read_hoist(const Section& s, Hoist& h) {
     h.rope_length = s.quantity("rope_length", Dimension::length);
     s.check_positive("rope_length", h.rope_length, Dimension::length);
-    s.check_plausible("rope_length", h.rope_length, Dimension::length, max_rope_length, "rope length");
+    s.check_plausible("rope_length", h.rope_length, Dimension::length, min_rope_length, max_rope_length,
+                      "rope length");
 
     h.parts_of_line = s.integer("parts_of_line", 1, 64, 1);
 
     h.rated_load = s.quantity("rated_load", Dimension::load);
     s.check_positive("rated_load", h.rated_load, Dimension::load);
+    s.check_plausible("rated_load", h.rated_load, Dimension::load, 0, max_rated_load, "rated load");
 
     h.rope_wll = s.optional_quantity("rope_wll", Dimension::load);
-    if (h.rope_wll) s.check_positive("rope_wll", *h.rope_wll, Dimension::load);
+    if (h.rope_wll) {
+        s.check_positive("rope_wll", *h.rope_wll, Dimension::load);
+        s.check_plausible("rope_wll", *h.rope_wll, Dimension::load, 0, max_rated_load, "rope WLL");
+    }
 
     h.rope_minimum_breaking_load = s.optional_quantity("rope_minimum_breaking_load", Dimension::load);
     if (h.rope_minimum_breaking_load) {
         s.check_positive("rope_minimum_breaking_load", *h.rope_minimum_breaking_load, Dimension::load);
+        s.check_plausible("rope_minimum_breaking_load", *h.rope_minimum_breaking_load, Dimension::load, 0,
+                          10 * max_rated_load, "minimum breaking load");
         if (h.rope_wll && !(*h.rope_minimum_breaking_load > *h.rope_wll))
             s.fail_at("rope_minimum_breaking_load",
                       "the minimum breaking load " + show(*h.rope_minimum_breaking_load, Dimension::load) +
@@ -427,6 +440,8 @@ void read_hoist(const Section& s, Hoist& h) {
 void read_hook_block(const Section& s, HookBlock& b) {
     b.mass = s.quantity("mass", Dimension::mass);
     s.check_positive("mass", b.mass, Dimension::mass);
+    s.check_plausible("mass", b.mass, Dimension::mass, min_hook_block_mass, max_hook_block_mass,
+                      "hook block mass");
 }
 
 // ---------------------------------------------------------------- rigging
@@ -434,7 +449,8 @@ void read_hook_block(const Section& s, HookBlock& b) {
 void read_rigging(const Section& s, Rigging& r) {
     r.length = s.quantity("length", Dimension::length);
     s.check_positive("length", r.length, Dimension::length);
-    s.check_plausible("length", r.length, Dimension::length, max_rigging_length, "rigging length");
+    s.check_plausible("length", r.length, Dimension::length, min_rigging_length, max_rigging_length,
+                      "rigging length");
 
     r.legs = s.integer("legs", 1, 4, 1);
 
@@ -466,9 +482,10 @@ void read_rigging(const Section& s, Rigging& r) {
     } else if (leg_length) {
         const double l = s.quantity(*leg_length, Dimension::length);
         s.check_positive("leg_length", l, Dimension::length);
-        s.check_plausible("leg_length", l, Dimension::length, max_leg_length, "leg length");
+        s.check_plausible("leg_length", l, Dimension::length, min_leg_length, max_leg_length, "leg length");
         const double w = s.quantity(*spread, Dimension::length);
         s.check_positive("spread", w, Dimension::length);
+        s.check_plausible("spread", w, Dimension::length, 0, max_spread, "spread");
         if (!(l > w / 2))
             s.fail_at(*leg_length, "legs of " + show(l, Dimension::length) +
                                        " cannot reach lifting points " + show(w, Dimension::length) +
@@ -500,7 +517,10 @@ void read_rigging(const Section& s, Rigging& r) {
     }
 
     r.leg_wll = s.optional_quantity("leg_wll", Dimension::load);
-    if (r.leg_wll) s.check_positive("leg_wll", *r.leg_wll, Dimension::load);
+    if (r.leg_wll) {
+        s.check_positive("leg_wll", *r.leg_wll, Dimension::load);
+        s.check_plausible("leg_wll", *r.leg_wll, Dimension::load, 0, max_rated_load, "leg WLL");
+    }
 }
 
 // ---------------------------------------------------------------- load, environment
@@ -508,18 +528,25 @@ void read_rigging(const Section& s, Rigging& r) {
 void read_load(const Section& s, Load& l) {
     l.mass = s.quantity("mass", Dimension::mass);
     s.check_positive("mass", l.mass, Dimension::mass);
+    // The upper bound is on hook block and load together, in build_job.
+    s.check_plausible("mass", l.mass, Dimension::mass, min_load_mass, inf, "load mass");
     l.radius_of_gyration = s.optional_quantity("radius_of_gyration", Dimension::length).value_or(0.0);
     s.check_range("radius_of_gyration", l.radius_of_gyration, Dimension::length, 0, true, inf, false);
+    s.check_plausible("radius_of_gyration", l.radius_of_gyration, Dimension::length, 0, max_radius_of_gyration,
+                      "radius of gyration");
     l.initial_angle = s.optional_quantity("initial_angle", Dimension::angle).value_or(0.0);
     if (!(std::fabs(l.initial_angle) < pi / 2))
         s.fail_at("initial_angle", "must be less than 90 deg either side of the vertical, got " +
                                        show(l.initial_angle, Dimension::angle));
     l.initial_rate = s.optional_quantity("initial_rate", Dimension::angular_rate).value_or(0.0);
+    s.check_plausible("initial_rate", std::fabs(l.initial_rate), Dimension::angular_rate, 0, max_initial_rate,
+                      "initial rate");
 }
 
 void read_environment(const Section& s, Environment& env) {
     env.gravity = s.optional_quantity("gravity", Dimension::acceleration).value_or(standard_gravity);
-    s.check_range("gravity", env.gravity, Dimension::acceleration, 0, false, 30, true);
+    s.check_range("gravity", env.gravity, Dimension::acceleration, 0, false, max_gravity, true);
+    s.check_plausible("gravity", env.gravity, Dimension::acceleration, min_gravity, max_gravity, "gravity");
 }
 
 // ---------------------------------------------------------------- limits
@@ -534,9 +561,17 @@ void read_limits(const Section& s, Limits& lim) {
     if (lim.load_angle)
         s.check_range("load_angle", *lim.load_angle, Dimension::angle, 0, false, pi / 2, false);
     lim.load_offset = s.optional_quantity("load_offset", Dimension::length);
-    if (lim.load_offset) s.check_positive("load_offset", *lim.load_offset, Dimension::length);
+    if (lim.load_offset) {
+        s.check_positive("load_offset", *lim.load_offset, Dimension::length);
+        s.check_plausible("load_offset", *lim.load_offset, Dimension::length, 0, max_length_limit,
+                          "load offset limit");
+    }
     lim.residual_swing = s.optional_quantity("residual_swing", Dimension::length);
-    if (lim.residual_swing) s.check_positive("residual_swing", *lim.residual_swing, Dimension::length);
+    if (lim.residual_swing) {
+        s.check_positive("residual_swing", *lim.residual_swing, Dimension::length);
+        s.check_plausible("residual_swing", *lim.residual_swing, Dimension::length, 0, max_length_limit,
+                          "residual swing limit");
+    }
 
     lim.rope_tension_share = s.optional_quantity("rope_tension", Dimension::ratio);
     if (lim.rope_tension_share)
@@ -551,6 +586,9 @@ void read_limits(const Section& s, Limits& lim) {
         const double f = s.number(*e, "1.15");
         if (!(f >= 1))
             s.fail_at(*e, "must be at least 1 (peak over static rope tension), got " + number_text(f));
+        if (f > max_dynamic_factor)
+            s.fail_at(*e, "implausible dynamic factor " + number_text(f) + " (more than " +
+                              number_text(max_dynamic_factor) + ")");
         lim.dynamic_factor = f;
     }
 
@@ -566,17 +604,21 @@ void read_limits(const Section& s, Limits& lim) {
 void read_analysis(const Section& s, AnalysisSettings& a) {
     a.duration_after = s.optional_quantity("duration_after", Dimension::time);
     if (a.duration_after)
-        s.check_range("duration_after", *a.duration_after, Dimension::time, 0, false, 3600, true);
+        s.check_range("duration_after", *a.duration_after, Dimension::time, 0, false, max_duration_after, true);
     if (const auto step = s.optional_quantity("output_step", Dimension::time)) {
-        s.check_range("output_step", *step, Dimension::time, 0, false, 10, true);
+        s.check_range("output_step", *step, Dimension::time, 0, false, max_output_step, true);
+        s.check_plausible("output_step", *step, Dimension::time, min_output_step, max_output_step, "output step");
         a.output_step = *step;
     }
     for (const char* key : {"relative_tolerance", "absolute_tolerance"}) {
         const Entry* e = s.find(key);
         if (e == nullptr) continue;
         const double tol = s.number(*e, "1e-8");
-        if (!(tol > 0 && tol <= 1e-3))
+        if (!(tol > 0 && tol <= max_tolerance))
             s.fail_at(*e, "must be more than 0 and at most 1e-3, got " + number_text(tol));
+        if (tol < min_tolerance)
+            s.fail_at(*e, "must be at least " + number_text(min_tolerance) + ", got " + number_text(tol) +
+                              ": finer than double precision can follow");
         (std::string_view(key) == "relative_tolerance" ? a.relative_tolerance : a.absolute_tolerance) = tol;
     }
     if (const Entry* e = s.find("integrator")) {
