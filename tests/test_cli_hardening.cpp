@@ -170,3 +170,17 @@ TEST_CASE("a job file name that is not UTF-8 still gives valid JSON", "[cli][har
     const nlohmann::json doc = nlohmann::json::parse(plumb_test::read_text(folder.file("out.json")));
     CHECK(doc.dump().find("lift-?.yaml") != std::string::npos);
 }
+
+TEST_CASE("a speed history in a folder whose name is not UTF-8 still gives valid JSON", "[cli][hardening]") {
+    plumb_test::ScratchFolder folder;
+    const fs::path odd = folder.path() / "yard-\xfe";
+    fs::create_directory(odd);
+    std::string job = short_job;
+    job.replace(job.find("  moves:"), job.find("hoist:") - job.find("  moves:"), "  speed_history: log.csv\n");
+    plumb_test::write_text((odd / "job.yaml").string(), job);
+    plumb_test::write_text((odd / "log.csv").string(), "time [s], speed [m/s]\n0, 0\n2, 0.4\n6, 0.4\n8, 0\n");
+    const RunResult r = run_plumb("check " + quoted((odd / "job.yaml").string()) + " --json -");
+    CHECK(r.status == 0);
+    const nlohmann::json doc = nlohmann::json::parse(r.out);
+    CHECK(doc.dump().find("yard-?") != std::string::npos);
+}

@@ -361,7 +361,7 @@ void read_speed_history(const Section& s, const Entry& e, SupportMotionSpec& mot
         s.fail_at(e, "speed history '" + shown + "': " + err.what());
     }
     motion.speed_history = parse_speed_history(content, shown);
-    motion.speed_history_file = shown;
+    motion.speed_history_file = printable(shown);  // the job's folder may have any bytes in its name
 }
 
 void read_motion(const Section& s, Job& job) {
