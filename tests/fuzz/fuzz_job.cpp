@@ -55,6 +55,9 @@ public:
     explicit JobWriter(FuzzedDataProvider& data) : data_(data) {}
 
     std::string job() {
+        // How wild the values get: at 0 every value is a plausible one in a
+        // right unit; the higher, the more extreme, random or broken values.
+        chaos_ = data_.ConsumeIntegral<std::uint8_t>() / 4;
         std::string y = "job:\n  title: " + text("Fuzzed lift") + "\n";
         if (data_.ConsumeBool()) y += "  reference: " + text("FZ-1") + "\n";
         y += "motion:\n";
@@ -68,14 +71,14 @@ public:
         }
         y += "hoist:\n";
         y += "  rope_length: " + quantity(10, {"m", "ft", "mm", ""}) + "\n";
-        if (data_.ConsumeBool()) y += "  parts_of_line: " + std::to_string(data_.ConsumeIntegralInRange(-1, 70)) + "\n";
+        if (data_.ConsumeBool()) y += "  parts_of_line: " + whole(1, 12, -1, 70) + "\n";
         y += "  rated_load: " + quantity(30, {"t", "kN", "lb", "kg"}) + "\n";
         if (data_.ConsumeBool()) y += "  rope_wll: " + quantity(8, {"t", "kN"}) + "\n";
         if (data_.ConsumeBool()) y += "  rope_minimum_breaking_load: " + quantity(300, {"kN", "t"}) + "\n";
         y += "hook_block:\n  mass: " + quantity(300, {"kg", "t", "lb"}) + "\n";
         y += "rigging:\n  length: " + quantity(2, {"m", "ft"}) + "\n";
         if (data_.ConsumeBool()) {
-            y += "  legs: " + std::to_string(data_.ConsumeIntegralInRange(1, 5)) + "\n";
+            y += "  legs: " + whole(2, 4, 0, 5) + "\n";
             switch (data_.ConsumeIntegralInRange(0, 2)) {
                 case 0: y += "  leg_angle_from_horizontal: " + quantity(60, {"deg", "rad"}) + "\n"; break;
                 case 1: y += "  leg_angle_from_vertical: " + quantity(30, {"deg"}) + "\n"; break;
@@ -114,8 +117,8 @@ private:
         if (data_.ConsumeBool()) l += "  load_offset: " + quantity(0.5, {"m"}) + "\n";
         if (data_.ConsumeBool()) l += "  residual_swing: " + quantity(0.1, {"m"}) + "\n";
         if (data_.ConsumeBool()) l += "  rope_tension: " + quantity(90, {"%"}) + "\n";
-        if (data_.ConsumeBool()) l += "  dynamic_factor: " + quantity(1.2, {""}) + "\n";
-        if (data_.ConsumeBool()) l += "  caution_at: " + quantity(85, {"%"}) + "\n";
+        if (data_.ConsumeBool()) l += "  dynamic_factor: " + quantity(2.5, {""}) + "\n";
+        if (data_.ConsumeBool()) l += "  caution_at: " + quantity(50, {"%"}) + "\n";
         return l;
     }
 
@@ -135,11 +138,10 @@ private:
         double t = 0;
         for (int i = 0; i < rows; ++i) {
             const bool edge = i == 0 || i == rows - 1;
-            const double speed = edge && data_.ConsumeIntegralInRange(0, 9) != 0
-                                     ? 0.0
-                                     : data_.ConsumeFloatingPointInRange<double>(-1.0, 1.0);
+            const double speed = edge && !wild() ? 0.0 : data_.ConsumeFloatingPointInRange<double>(-1.0, 1.0);
             csv += number(t) + ", " + number(speed) + "\n";
-            t += data_.ConsumeFloatingPointInRange<double>(-0.1, 5.0);
+            t += wild() ? data_.ConsumeFloatingPointInRange<double>(-0.1, 0.3)
+                        : data_.ConsumeFloatingPointInRange<double>(0.4, 5.0);
         }
         std::ofstream(scratch_folder() / "history.csv", std::ios::binary | std::ios::trunc) << csv;
     }
@@ -150,11 +152,25 @@ private:
         return buf;
     }
 
-    // A value for a key: mostly a typical value scaled over four decades in a
-    // unit of the right kind; sometimes extreme, random or not a number.
+    // True with a probability that grows with the chaos level.
+    bool wild() { return data_.ConsumeIntegralInRange(0, 255) < chaos_; }
+
+    // A whole number: mostly in [low, high], when wild in [wild_low, wild_high].
+    std::string whole(int low, int high, int wild_low, int wild_high) {
+        return std::to_string(wild() ? data_.ConsumeIntegralInRange(wild_low, wild_high)
+                                     : data_.ConsumeIntegralInRange(low, high));
+    }
+
+    // A value for a key: mostly a typical value scaled by up to 3 either way in
+    // the first (plausible) unit given; when wild, scaled over four decades,
+    // in any of the units or a wrong one, extreme, random or not a number.
     std::string quantity(double typical, const std::vector<const char*>& units) {
         static const char* const extremes[] = {"0", "-1", "1e308", "5e-324", "1e-300", "1e154", "nan", ".inf",
                                                "-.inf", "1e999", "0x10", "+0", "-0", "1e-7", "4e5"};
+        if (!wild()) {
+            const std::string value = number(typical * std::pow(10.0, data_.ConsumeFloatingPointInRange<double>(-0.5, 0.5)));
+            return units[0][0] ? value + " " + units[0] : value;
+        }
         std::string value;
         const int kind = data_.ConsumeIntegralInRange(0, 11);
         if (kind <= 7) {
@@ -173,9 +189,9 @@ private:
         return units[u][0] ? value + " " + units[u] : value;
     }
 
-    // Text: mostly the typical one, else fuzzed bytes in a double-quoted scalar.
+    // Text: mostly the typical one; when wild, fuzzed bytes in a double-quoted scalar.
     std::string text(const char* typical) {
-        if (data_.ConsumeIntegralInRange(0, 3) != 0) return std::string("\"") + typical + "\"";
+        if (!wild()) return std::string("\"") + typical + "\"";
         std::string raw = data_.ConsumeRandomLengthString(48);
         std::string quoted = "\"";
         for (char c : raw) {
@@ -187,7 +203,20 @@ private:
     }
 
     FuzzedDataProvider& data_;
+    int chaos_ = 0;
 };
+
+// PLUMB_FUZZ_STATS=1: at exit, how many inputs were generated jobs, were
+// accepted by the parser and were simulated (to judge the generator).
+struct Stats {
+    long inputs = 0, generated = 0, accepted = 0, simulated = 0;
+    ~Stats() {
+        if (std::getenv("PLUMB_FUZZ_STATS") != nullptr)
+            std::fprintf(stderr, "plumb_fuzz_job: %ld inputs, %ld generated, %ld accepted, %ld simulated\n",
+                         inputs, generated, accepted, simulated);
+    }
+};
+Stats stats;
 
 bool strict() {
     static const bool s = std::getenv("PLUMB_FUZZ_STRICT") != nullptr;
@@ -201,6 +230,7 @@ void run_pipeline(const plumb::Job& job, bool keep_time_series) {
                        job.analysis.duration_after.value_or(plumb::automatic_duration_after(modes));
     if (plumb::fast_mode_cycles(modes, end) > fuzz_cycle_budget) return;
     if (keep_time_series && end / job.analysis.output_step > 2e4) keep_time_series = false;
+    ++stats.simulated;
     try {
         const plumb::LiftAssessment a = plumb::assess_lift(job, keep_time_series);
         for (plumb::UnitSystem units : {plumb::UnitSystem::si, plumb::UnitSystem::us_customary}) {
@@ -220,11 +250,13 @@ void run_pipeline(const plumb::Job& job, bool keep_time_series) {
 
 extern "C" int LLVMFuzzerTestOneInput(const std::uint8_t* bytes, std::size_t size) {
     if (size == 0) return 0;
+    ++stats.inputs;
     std::string text;
     bool keep_time_series = false;
     if (bytes[0] >= 0x20 && bytes[0] < 0x7f) {
         text.assign(reinterpret_cast<const char*>(bytes), size);
     } else {
+        ++stats.generated;
         FuzzedDataProvider data(bytes + 1, size - 1);
         JobWriter writer(data);
         text = writer.job();
@@ -233,6 +265,7 @@ extern "C" int LLVMFuzzerTestOneInput(const std::uint8_t* bytes, std::size_t siz
     plumb::Job job;
     try {
         job = plumb::parse_job(text, "fuzz.yaml", scratch_folder().string());
+        ++stats.accepted;
         run_pipeline(job, keep_time_series);
     } catch (const plumb::InputError&) {
         // bad input, refused as it should be
