@@ -14,6 +14,7 @@
 
 #include "plumb/errors.hpp"
 #include "plumb/model.hpp"
+#include "plumb/output_files.hpp"
 #include "plumb/report.hpp"
 #include "scratch_folder.hpp"
 

@@ -2,9 +2,12 @@
 // everything after the parser reads it and nothing else.
 #pragma once
 
+#include <map>
 #include <optional>
 #include <string>
 #include <vector>
+
+#include "plumb/errors.hpp"
 
 namespace plumb {
 
@@ -103,6 +106,10 @@ struct Job {
     Environment environment;
     Limits limits;
     AnalysisSettings analysis;
+    // Where each key was given in the job file ("hook_block.mass" -> file,
+    // line, column, key path), so that a check after the parser can point at
+    // the input it refuses. Empty for a Job built in code.
+    std::map<std::string, SourceLocation> key_locations;
 };
 
 }  // namespace plumb

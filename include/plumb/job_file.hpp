@@ -17,4 +17,8 @@ Job load_job_file(const std::string& path);
 Job parse_job(const std::string& yaml_text, const std::string& source_name,
               const std::string& base_folder = ".");
 
+// Where a key of the job was given (see Job::key_locations); for a key that
+// was not given, the job file and the key path without a line.
+SourceLocation job_key_location(const Job& job, const std::string& key_path);
+
 }  // namespace plumb

@@ -1,5 +1,5 @@
 // Outputs: the terminal summary, JSON, CSV time series. Pure formatting: they
-// read a LiftAssessment and return text; files are written whole or not at all.
+// read a LiftAssessment and return text (output_files.hpp writes the files).
 // Units of the outputs: output_units.hpp; text layout: text_layout.hpp; what
 // several outputs state: report_facts.hpp.
 #pragma once
@@ -21,14 +21,5 @@ std::string format_summary(const LiftAssessment& a, UnitSystem units);
 std::string format_modes(const Job& job, const ModelDescription& model, UnitSystem units);
 std::string format_json(const LiftAssessment& a, UnitSystem units);
 std::string format_csv(const LiftAssessment& a, UnitSystem units);
-
-// Write to a temporary file beside path, then rename over it: a reader never
-// sees a partial file. Throws OutputError.
-void write_file_atomically(const std::string& path, const std::string& content);
-
-// Several files, all or none: every file is staged beside its target first; if
-// any cannot be staged, no target is touched. Then each is renamed into place.
-// Pairs of (path, content). Throws OutputError.
-void write_files_atomically(const std::vector<std::pair<std::string, std::string>>& files);
 
 }  // namespace plumb

@@ -9,6 +9,7 @@
 
 #include "plumb/model.hpp"
 #include "plumb/rigging.hpp"
+#include "plumb/work_budget.hpp"
 
 namespace plumb {
 namespace {
@@ -158,6 +159,7 @@ LiftPrediction predict_lift(const Job& job, const SwingModel& model, const Model
     p.model = description;
     p.end_of_motion = model.motion().end_of_motion();
     p.end_time = p.end_of_motion + job.analysis.duration_after.value_or(automatic_duration_after(p.model.modes));
+    check_work_budget(job, p.model.modes, p.end_time, output_step);
 
     SimulationRequest request;
     request.end_time = p.end_time;

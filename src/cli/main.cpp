@@ -7,6 +7,7 @@
 #include <map>
 #include <string>
 #include <system_error>
+#include <tuple>
 #include <utility>
 #include <vector>
 
@@ -15,6 +16,7 @@
 #include "plumb/assessment.hpp"
 #include "plumb/errors.hpp"
 #include "plumb/job_file.hpp"
+#include "plumb/output_files.hpp"
 #include "plumb/report.hpp"
 
 #ifndef PLUMB_VERSION
@@ -25,8 +27,10 @@ namespace {
 
 struct Options {
     std::string job_path;
-    std::string json_path;
+    std::string json_path;  // "-": standard output
     std::string csv_path;
+    bool json_given = false;  // given at all, even as ""
+    bool csv_given = false;
     plumb::UnitSystem units = plumb::UnitSystem::si;
 };
 
@@ -55,15 +59,27 @@ bool same_file(const std::string& a, const std::string& b) {
     return pa == pb;
 }
 
-// An output file must not overwrite the job file or the other output.
+// "-" names standard output rather than a file.
+bool is_standard_output(const std::string& path) { return path == "-"; }
+
+// An output file must not overwrite the job file or the other output, and
+// must be something plumb may replace (checked again when writing).
 void check_output_paths(const Options& options) {
-    const std::pair<const char*, const std::string*> outputs[] = {{"--json", &options.json_path},
-                                                                  {"--csv", &options.csv_path}};
-    for (const auto& [option, path] : outputs) {
-        if (!path->empty() && same_file(*path, options.job_path)) {
+    const std::tuple<const char*, const std::string*, bool> outputs[] = {
+        {"--json", &options.json_path, options.json_given}, {"--csv", &options.csv_path, options.csv_given}};
+    for (const auto& [option, path, given] : outputs) {
+        if (given && path->empty()) {
+            throw plumb::UsageError(std::string(option) + " needs a file name (or '-' for standard output)");
+        }
+        if (path->empty() || is_standard_output(*path)) continue;
+        plumb::require_replaceable_output(*path);
+        if (same_file(*path, options.job_path)) {
             throw plumb::UsageError(std::string(option) + " names the job file '" + *path +
                                     "': it would be overwritten");
         }
+    }
+    if (is_standard_output(options.json_path) && is_standard_output(options.csv_path)) {
+        throw plumb::UsageError("--json and --csv cannot both write to standard output ('-')");
     }
     if (!options.json_path.empty() && !options.csv_path.empty() &&
         same_file(options.json_path, options.csv_path)) {
@@ -80,17 +96,24 @@ int run_check(const Options& options) {
     // written all or none, so a failure leaves no partial output behind.
     const std::string summary = plumb::format_summary(assessment, options.units);
     std::vector<std::pair<std::string, std::string>> files;
-    if (!options.json_path.empty()) {
-        files.emplace_back(options.json_path, plumb::format_json(assessment, options.units));
-    }
-    if (!options.csv_path.empty()) {
-        files.emplace_back(options.csv_path, plumb::format_csv(assessment, options.units));
-    }
+    std::string to_standard_output;  // the one output named '-', if any
+    const auto add = [&](const std::string& path, std::string content) {
+        if (path.empty()) return;
+        if (is_standard_output(path)) to_standard_output = std::move(content);
+        else files.emplace_back(path, std::move(content));
+    };
+    add(options.json_path, options.json_path.empty() ? "" : plumb::format_json(assessment, options.units));
+    add(options.csv_path, options.csv_path.empty() ? "" : plumb::format_csv(assessment, options.units));
     plumb::write_files_atomically(files);
 
-    std::cout << summary;
-    for (const auto& [path, content] : files) std::cout << "Wrote " << path << "\n";
-    std::cout << std::flush;
+    // With an output on standard output, the summary goes to standard error so
+    // that a pipe receives the JSON or CSV alone.
+    const bool piped = is_standard_output(options.json_path) || is_standard_output(options.csv_path);
+    std::ostream& summary_stream = piped ? std::cerr : std::cout;
+    summary_stream << summary;
+    for (const auto& [path, content] : files) summary_stream << "Wrote " << path << "\n";
+    summary_stream << std::flush;
+    if (piped) std::cout << to_standard_output << std::flush;
 
     // A run that outlives its model's validity is never a pass.
     if (assessment.overall == plumb::Verdict::fail || assessment.prediction.valid_until()) {
@@ -128,11 +151,14 @@ int run(int argc, char** argv) {
     CLI::App* check = app.add_subcommand(
         "check", "Simulate the lift, check it against the job's limits and print the summary");
     add_job_argument(*check, options);
-    check->add_option("--json", options.json_path, "Also write the results as JSON to FILE")
-        ->option_text("FILE");
-    check->add_option("--csv", options.csv_path,
-                      "Also write the time series (one row per output step) as CSV to FILE")
-        ->option_text("FILE");
+    CLI::Option* json = check->add_option(
+        "--json", options.json_path,
+        "Also write the results as JSON to FILE ('-': to standard output, the summary then to standard error)");
+    json->option_text("FILE");
+    CLI::Option* csv = check->add_option(
+        "--csv", options.csv_path,
+        "Also write the time series (one row per output step) as CSV to FILE ('-': to standard output)");
+    csv->option_text("FILE");
     add_units_option(*check, options);
 
     CLI::App* modes = app.add_subcommand(
@@ -157,6 +183,8 @@ int run(int argc, char** argv) {
         return static_cast<int>(plumb::ExitStatus::bad_input);
     }
 
+    options.json_given = json->count() > 0;
+    options.csv_given = csv->count() > 0;
     if (check->parsed()) return run_check(options);
     return run_modes(options);
 }
