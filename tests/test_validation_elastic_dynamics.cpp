@@ -96,6 +96,31 @@ TEST_CASE("the vertical bounce has the spring-mass frequency sqrt of k over m") 
     CHECK(c.mean_period() == Approx(expected).epsilon(5e-4));
 }
 
+TEST_CASE("the axial damping ratio gives the bounce the damped spring-mass decay") {
+    TestTrajectory tr = still_support(L1);
+    ElasticParameters p = vertical_parameters();
+    const double zeta = 0.02;
+    p.damping_ratio = zeta;
+    const ElasticLiftModel model(p, tr);
+    const double static_stretch = m * g0 / k1, rigging_static = m2 * g0 / k2;
+    const double z_rest = tr.origin.z() - L1 - static_stretch - L2 - rigging_static;
+    State x = vertical_state(tr, static_stretch + 0.05, rigging_static);
+    // Depths of the successive lowest points below the rest position.
+    std::vector<double> depths;
+    double last_vz = 0;
+    run(model, x, 0, 3.2, 1e-4, [&](double, const State& s, const Regime&) {
+        if (last_vz < 0 && s[11] >= 0) depths.push_back(z_rest - s[5]);
+        last_vz = s[11];
+    });
+    REQUIRE(depths.size() >= 3);
+    // Damped single-degree system: logarithmic decrement 2 pi zeta / sqrt(1 - zeta^2)
+    // per period (any vibrations text).
+    const double decrement = std::log(depths.front() / depths.back()) / static_cast<double>(depths.size() - 1);
+    // 2e-3: the rigging's dashpot and stiffness change it by O(k1/k2) = 1e-4;
+    // a minimum sampled 0.1 ms off its time errs by (omega h)^2 / 2 = 5e-5 of the depth.
+    CHECK(decrement == Approx(2 * std::numbers::pi * zeta / std::sqrt(1 - zeta * zeta)).epsilon(2e-3));
+}
+
 TEST_CASE("a suddenly applied load stretches the rope to twice its static stretch") {
     const TestTrajectory tr = still_support(L1);
     const ElasticLiftModel model(vertical_parameters(), tr);

@@ -214,3 +214,69 @@ TEST_CASE("elastic model refuses parameters its equations cannot take") {
     bad.damping_ratio = -0.1;
     CHECK_THROWS_AS(ElasticLiftModel(bad, tr), InputError);
 }
+
+TEST_CASE("under a constant support acceleration the damped ropes hang along the effective gravity") {
+    // d'Alembert: in the frame of a support accelerating at a, every body
+    // hangs in the field g - a: tan(theta) = a / g, tension m sqrt(g^2 + a^2);
+    // the state moves with the support, so every acceleration is a [derived].
+    // The damping is on: it must act on the stretch rate relative to the
+    // moving support, which is zero here.
+    TestTrajectory tr;
+    tr.acceleration = {0.6, 0.3, 0};
+    tr.rope_length = 16;
+    tr.finish();
+    ElasticParameters p;
+    p.hook_block_mass = m1;
+    p.load_mass = m2;
+    p.hoist_rope = rope_with_ea(2e7);
+    p.rigging_rope = rope_with_ea(3e7);
+    p.rigging_length = 3;
+    p.damping_ratio = 0.05;
+    const ElasticLiftModel model(p, tr);
+    const double t = 2.0;
+    const SupportKinematics k = tr.at(t, 0);
+    const Eigen::Vector3d a = k.acceleration, field = a - Eigen::Vector3d(0, 0, -g0);
+    const Eigen::Vector3d down = -field.normalized();  // along g - a
+    const double g_eff = field.norm();
+    const Eigen::Vector3d hook = k.position + (16 + W * g_eff / g0 * 16 / 2e7) * down;
+    const Eigen::Vector3d load = hook + (3 + m2 * g_eff * 3 / 3e7) * down;
+    const Eigen::Vector3d v = k.velocity;
+    const State x{hook.x(), hook.y(), hook.z(), load.x(), load.y(), load.z(), v.x(), v.y(), v.z(), v.x(), v.y(), v.z()};
+    State f;
+    model.derivatives(t, Regime{}, x, f);
+    for (int i = 0; i < 3; ++i) {
+        CHECK(f[6 + i] == Approx(a[i]).margin(1e-9 * g0));
+        CHECK(f[9 + i] == Approx(a[i]).margin(1e-9 * g0));
+    }
+    const ElasticObservation o = model.observe(t, Regime{}, x);
+    const Eigen::Vector3d r = o.hoist_rope.vector;
+    CHECK(std::atan2(r.head<2>().norm(), -r.z()) == Approx(std::atan(a.norm() / g0)).epsilon(1e-12));
+}
+
+TEST_CASE("a hook hoisted at constant rope speed with its static stretch feels no dashpot force") {
+    // The dashpot acts on the stretch rate de/dt = u . (v_hook - v_support) - dL/dt:
+    // a hook moving up exactly with the rope (at -dL/dt) keeps its stretch and
+    // hangs in equilibrium [derived, model.md "Elastic model"].
+    TestTrajectory tr;
+    tr.rope_length = 16;
+    tr.hoist_start = 0;
+    tr.hoist_speed = -0.3;
+    tr.finish();
+    ElasticParameters p;
+    p.hook_block_mass = m1;
+    p.load_mass = m2;
+    p.hoist_rope = rope_with_ea(2e7);
+    p.rigging_rope = rope_with_ea(3e7);
+    p.rigging_length = 3;
+    p.damping_ratio = 0.05;
+    const ElasticLiftModel model(p, tr);
+    const double t = 4.0;
+    const SupportKinematics k = tr.at(t, 1);
+    REQUIRE(k.rope_length == Approx(16 - 1.2).epsilon(1e-15));
+    State x = hanging(tr.origin, k.rope_length, W / model.hoist_rope_stiffness(k.rope_length), 3,
+                      m2 * g0 * 3 / 3e7);
+    x[8] = x[11] = 0.3;  // moving up with the rope
+    State f;
+    model.derivatives(t, Regime{1, 0}, x, f);
+    for (int i = 6; i < 12; ++i) CHECK(std::abs(f[i]) < 1e-9 * g0);
+}
