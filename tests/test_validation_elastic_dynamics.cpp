@@ -29,12 +29,7 @@ constexpr double k1 = EA1 / L1, k2 = 1e4 * k1;
 constexpr double k_series = k1 * k2 / (k1 + k2);
 
 ElasticParameters vertical_parameters() {
-    ElasticParameters p;
-    p.hook_block_mass = m1;
-    p.load_mass = m2;
-    p.hoist_rope = rope_with_ea(EA1);
-    p.rigging_rope = rope_with_ea(k2 * L2);
-    p.rigging_length = L2;
+    ElasticParameters p = on_ropes(m1, m2, EA1, k2 * L2, L2);
     return p;
 }
 
@@ -183,12 +178,7 @@ TEST_CASE("with very stiff ropes the swing periods are those of the rigid double
     // Mechanics). Mode shapes theta2 / theta1 = +sqrt 2 (slow), -sqrt 2 (fast).
     const double mass = 1000, L = 10, EA = 2e9;  // static stretch 1e-5 of the length
     TestTrajectory tr = still_support(L);
-    ElasticParameters p;
-    p.hook_block_mass = mass;
-    p.load_mass = mass;
-    p.hoist_rope = rope_with_ea(EA);
-    p.rigging_rope = rope_with_ea(EA);
-    p.rigging_length = L;
+    ElasticParameters p = on_ropes(mass, mass, EA, EA, L);
     const ElasticLiftModel model(p, tr);
     for (const double sign : {+1.0, -1.0}) {
         const double theta1 = 0.01, theta2 = sign * std::sqrt(2.0) * theta1;
@@ -241,12 +231,7 @@ TEST_CASE("a load under a support slewing at constant rate settles on the conica
     tr.slew_rate = 0.3;
     tr.rope_length = L;
     tr.finish();
-    ElasticParameters p;
-    p.hook_block_mass = ms1;
-    p.load_mass = ms2;
-    p.hoist_rope = rope_with_ea(EA);
-    p.rigging_rope = rope_with_ea(EAr);
-    p.rigging_length = Lr;
+    ElasticParameters p = on_ropes(ms1, ms2, EA, EAr, Lr);
     const ElasticLiftModel model(p, tr);
     const Cone c = steady_cone(ms1, ms2, 15, 0.3, L, EA / L, Lr, EAr / Lr);
     // At t = 0 the support is at (r_s, 0) moving along +y: everything on the x axis.
@@ -278,12 +263,7 @@ TEST_CASE("a load under a support slewing at constant rate settles on the conica
 TEST_CASE("without damping and wind the elastic model conserves energy through swing and bounce") {
     const double ms1 = 500, ms2 = 4000, L = 15, Lr = 3;
     const TestTrajectory tr = still_support(L);
-    ElasticParameters p;
-    p.hook_block_mass = ms1;
-    p.load_mass = ms2;
-    p.hoist_rope = rope_with_ea(2e7);
-    p.rigging_rope = rope_with_ea(3e7);
-    p.rigging_length = Lr;
+    ElasticParameters p = on_ropes(ms1, ms2, 2e7, 3e7, Lr);
     const ElasticLiftModel model(p, tr);
     // Both in one straight line at 20 deg, pushed sideways (0.6 and 0.9 m/s
     // across the plane: a swing in 3-D), members at 1.1 times their static
@@ -319,12 +299,7 @@ TEST_CASE("a load lifted off the ground from a just-taut rigging peaks at the en
     tr.hoist_ramp = 0.1;
     tr.hoist_speed = -v;
     tr.finish();
-    ElasticParameters p;
-    p.hook_block_mass = ms1;
-    p.load_mass = ms2;
-    p.hoist_rope = rope_with_ea(EA);
-    p.rigging_rope = rope_with_ea(k_rig * Lr);
-    p.rigging_length = Lr;
+    ElasticParameters p = on_ropes(ms1, ms2, EA, k_rig * Lr, Lr);
     const double hook_z = tr.origin.z() - L - ms1 * g0 * L / EA;
     const double load_z = hook_z - Lr;
     // The rigging 1 mm short of taut: exactly taut would sit at zero stretch

@@ -47,6 +47,11 @@ RopeData steel_rope_20mm() {
     return r;
 }
 
+// Hook block and load of this file on ropes given by EA.
+ElasticParameters on_ropes(double hoist_ea, double rigging_ea, double rigging_length) {
+    return elastic_test::on_ropes(m1, m2, hoist_ea, rigging_ea, rigging_length);
+}
+
 }  // namespace
 
 TEST_CASE("static stretch of a single fall follows Hooke's law with the metallic area C d squared") {
@@ -107,12 +112,7 @@ TEST_CASE("in a steady wind the ropes hang at the angle whose tangent is drag ov
     TestTrajectory tr;
     tr.rope_length = 18;
     tr.finish();
-    ElasticParameters p;
-    p.hook_block_mass = m1;
-    p.load_mass = m2;
-    p.hoist_rope = rope_with_ea(2e7);
-    p.rigging_rope = rope_with_ea(3e7);
-    p.rigging_length = 3;
+    ElasticParameters p = on_ropes(2e7, 3e7, 3);
     p.hook_block_drag = {1.0, 0.5};
     p.load_drag = {1.2, 6.0};
     const double dir = 30 * std::numbers::pi / 180, U = 12;
@@ -159,12 +159,7 @@ TEST_CASE("the gust adds a smooth rise and fall of the given peak to the steady 
 TEST_CASE("drag acts on the velocity relative to the air with the square of its magnitude") {
     TestTrajectory tr;
     tr.finish();
-    ElasticParameters p;
-    p.hook_block_mass = m1;
-    p.load_mass = m2;
-    p.hoist_rope = rope_with_ea(2e7);
-    p.rigging_rope = rope_with_ea(3e7);
-    p.rigging_length = 3;
+    ElasticParameters p = on_ropes(2e7, 3e7, 3);
     p.load_drag = {1.2, 6.0};
     p.wind = {8.0, 0.0, 6.0, 10.0, 4.0, 1.25};
     const ElasticLiftModel model(p, tr);
@@ -197,12 +192,7 @@ TEST_CASE("a load of unknown shape gets the documented default wind area per ton
 TEST_CASE("elastic model refuses parameters its equations cannot take") {
     TestTrajectory tr;
     tr.finish();
-    ElasticParameters p;
-    p.hook_block_mass = m1;
-    p.load_mass = m2;
-    p.hoist_rope = rope_with_ea(2e7);
-    p.rigging_rope = rope_with_ea(3e7);
-    p.rigging_length = 3;
+    ElasticParameters p = on_ropes(2e7, 3e7, 3);
     CHECK_NOTHROW(ElasticLiftModel(p, tr));
     ElasticParameters bad = p;
     bad.hoist_rope = RopeData{};
@@ -225,12 +215,7 @@ TEST_CASE("under a constant support acceleration the damped ropes hang along the
     tr.acceleration = {0.6, 0.3, 0};
     tr.rope_length = 16;
     tr.finish();
-    ElasticParameters p;
-    p.hook_block_mass = m1;
-    p.load_mass = m2;
-    p.hoist_rope = rope_with_ea(2e7);
-    p.rigging_rope = rope_with_ea(3e7);
-    p.rigging_length = 3;
+    ElasticParameters p = on_ropes(2e7, 3e7, 3);
     p.damping_ratio = 0.05;
     const ElasticLiftModel model(p, tr);
     const double t = 2.0;
@@ -262,12 +247,7 @@ TEST_CASE("a hook hoisted at constant rope speed with its static stretch feels n
     tr.hoist_start = 0;
     tr.hoist_speed = -0.3;
     tr.finish();
-    ElasticParameters p;
-    p.hook_block_mass = m1;
-    p.load_mass = m2;
-    p.hoist_rope = rope_with_ea(2e7);
-    p.rigging_rope = rope_with_ea(3e7);
-    p.rigging_length = 3;
+    ElasticParameters p = on_ropes(2e7, 3e7, 3);
     p.damping_ratio = 0.05;
     const ElasticLiftModel model(p, tr);
     const double t = 4.0;

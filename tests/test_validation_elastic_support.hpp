@@ -196,6 +196,18 @@ inline plumb::RopeData rope_with_ea(double ea) {
     return r;
 }
 
+// Hook block m1 and load m2 on a hoist rope and a rigging given by EA.
+inline plumb::ElasticParameters on_ropes(double m1, double m2, double hoist_ea, double rigging_ea,
+                                         double rigging_length) {
+    plumb::ElasticParameters p;
+    p.hook_block_mass = m1;
+    p.load_mass = m2;
+    p.hoist_rope = rope_with_ea(hoist_ea);
+    p.rigging_rope = rope_with_ea(rigging_ea);
+    p.rigging_length = rigging_length;
+    return p;
+}
+
 inline State to_state(const std::vector<double>& v) {
     State s{};
     for (std::size_t i = 0; i < s.size(); ++i) s[i] = v[i];
