@@ -282,8 +282,10 @@ TEST_CASE("without damping and wind the elastic model conserves energy through s
     });
     REQUIRE(res.events.empty());
     // Conservation of energy [derived]: T + V constant for a conservative system.
-    // 1e-6 of the motion's energy above the hanging rest: RK4 at omega h <= 0.15 (common practice, no source).
-    CHECK(worst < 1e-6 * (e0 - e_rest));
+    // 1e-9 of the motion's energy above the hanging rest: RK4 at omega h <= 0.15
+    // drifts by about 1e-11 here, falling as h^5 (seen at 2, 1, 0.5 ms); a
+    // wrong force term drifts by O(1).
+    CHECK(worst < 1e-9 * (e0 - e_rest));
 }
 
 TEST_CASE("a load lifted off the ground from a just-taut rigging peaks at the energy-balance dynamic factor") {
