@@ -328,3 +328,31 @@ TEST_CASE("a load lifted off the ground from a just-taut rigging peaks at the en
     CHECK(res.events[1].mode_after == 0);
     CHECK(res.events[1].time == Approx(0.2 + (slack + d_st - 0.5 * v * 0.1) / v).margin(1e-3));
 }
+
+TEST_CASE("a load lowered back onto the ground ends the run at touch-down") {
+    // Setting the load down is outside the model (model.md sec. 11.1): the
+    // run stops when the load CG reaches its resting height.
+    TestTrajectory tr;
+    tr.rope_length = L1;
+    tr.hoist_start = 0.5;
+    tr.hoist_ramp = 0.2;
+    tr.hoist_speed = 0.4;  // paying out: lowering
+    tr.finish();
+    ElasticParameters p = vertical_parameters();
+    p.damping_ratio = 0.3;
+    const double static_stretch = m * g0 / k1, rigging_static = m2 * g0 / k2;
+    const double z_rest = tr.origin.z() - L1 - static_stretch - L2 - rigging_static;
+    p.ground = {true, z_rest - 0.2};
+    const ElasticLiftModel model(p, tr);
+    const State x = to_state(model.hanging_at_rest());
+    REQUIRE(model.initial_mode(x) == 0);
+    const RunResult res = run(model, x, 0, 5, 2e-4, [](double, const State&, const Regime&) {});
+    CHECK(res.stopped);
+    REQUIRE(res.events.size() == 1);
+    CHECK(res.events[0].index == elastic_event::touch_down);
+    CHECK(res.events[0].direction == -1);
+    CHECK(res.x[5] == Approx(z_rest - 0.2).margin(1e-9));
+    // Paid out 0.2 m: ramp 0.04 m in 0.2 s, then 0.16 m at 0.4 m/s [derived,
+    // kinematics]; the damped rope lags by about 2 zeta / omega = 0.06 s.
+    CHECK(res.end_time == Approx(1.1).margin(0.1));
+}
