@@ -156,6 +156,8 @@ public:
     // Throws InputError for parameters the equations cannot take (masses,
     // stiffnesses, lengths not positive).
     ElasticLiftModel(const ElasticParameters& p, const SupportTrajectory& support);
+    // The model keeps a reference to the trajectory: a temporary would dangle.
+    ElasticLiftModel(const ElasticParameters& p, SupportTrajectory&& support) = delete;
 
     std::size_t state_size() const override { return 2 * dof; }
     std::vector<StateComponent> state_components() const override;
@@ -180,6 +182,8 @@ public:
     // Dashpot constants giving the damping ratio to each member's axial mode.
     double hoist_rope_damping(double fall_length) const;
     double rigging_damping() const;
+
+    // initial_mode() reads the support at t = 0: runs start there.
 
     // Everything hanging at rest under the support at time t (interval 0):
     // hook and load straight below the suspension point with their static stretches.
