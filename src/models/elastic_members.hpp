@@ -1,0 +1,52 @@
+// The elastic model's pieces shared by its derivatives, Jacobian and events
+// (src/models/elastic_*.cpp). Names follow docs/model.md, "Elastic model".
+#pragma once
+
+#include <span>
+
+#include <Eigen/Core>
+
+#include "plumb/elastic_model.hpp"
+
+namespace plumb::elastic_detail {
+
+using Vec3 = Eigen::Vector3d;
+
+// One member from end a (upper) to end b (lower): d = p_b - p_a, w = v_b - v_a.
+struct Member {
+    Vec3 d = Vec3::Zero();
+    Vec3 w = Vec3::Zero();
+    double length = 0;        // l = |d|
+    Vec3 u = Vec3::Zero();    // d / l: the direction the member pulls end a toward b
+    double stretch = 0;       // e = l - L
+    double stretch_rate = 0;  // de/dt = u . w - dL/dt
+    double stiffness = 0;     // k
+    double damping = 0;       // c
+    double tension = 0;       // T = k e + c de/dt when taut, 0 when slack
+    bool slack = false;
+};
+
+Member make_member(const Vec3& d, const Vec3& w, double rest_length, double rest_length_rate,
+                   double stiffness, double damping, bool slack);
+
+// Everything the equations need at one (t, regime, x).
+struct Snapshot {
+    SupportKinematics support;
+    Vec3 hook, load, hook_velocity, load_velocity;
+    Member hoist_rope;  // suspension point -> hook block
+    Member rigging;     // hook block -> load CG
+    Vec3 wind = Vec3::Zero();
+    bool load_on_ground = false;
+};
+
+Snapshot snapshot(const ElasticLiftModel& model, double t, const Regime& r, std::span<const double> x);
+
+// Drag on a body moving at v in wind of velocity wind: -beta |v - wind| (v - wind),
+// beta = 1/2 rho Cd A.
+double drag_factor(const DragData& drag, double air_density);
+inline Vec3 drag_force(double beta, const Vec3& v, const Vec3& wind) {
+    const Vec3 rel = v - wind;
+    return -beta * rel.norm() * rel;
+}
+
+}  // namespace plumb::elastic_detail
