@@ -45,6 +45,7 @@ struct SvgTextStyle {
     std::string fill = "#000";
     double rotate_degrees = 0.0;  // about the text's anchor point
     std::string css_class;
+    std::string halo{};  // if set, a band of this colour behind the letters
 };
 
 // Builds one <svg> element. Coordinates are user units (CSS px at scale 1);
@@ -100,6 +101,8 @@ struct PlotPanel {
     std::string unit;      // e.g. "deg"; the label reads "swing angle (deg)"
     std::vector<PlotSeries> series;
     std::vector<LimitLine> limits;
+    double height = 0.0;  // of the plotting area; 0 takes the plot's panel_height
+    std::string limits_legend = "limit";  // the legend's word for the lines, e.g. "WLL / static weight"
 };
 
 // One or more panels, one above the other, sharing the x (time) axis.
@@ -109,7 +112,7 @@ struct TimePlot {
     std::string x_unit = "s";
     std::vector<PlotPanel> panels;
     double width = 720.0;         // user units
-    double panel_height = 200.0;  // plotting area of each panel
+    double panel_height = 200.0;  // plotting area of a panel that sets no height
 };
 
 std::string render_time_plot(const TimePlot& plot);

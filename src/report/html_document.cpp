@@ -30,7 +30,7 @@ p { margin: 0 0 2.5mm; }
      font-size: 8.5pt; word-break: break-all; }
 .verdict { border: 2px solid var(--ink); border-left-width: 9mm; padding: 3mm 4mm; margin: 4mm 0 5mm; }
 .verdict .word { font-size: 20pt; font-weight: bold; letter-spacing: 0.06em; margin: 0; }
-.verdict .word .qualifier { font-size: 12pt; letter-spacing: 0; }
+.verdict .word .qualifier { display: block; font-size: 12pt; letter-spacing: 0; }
 .verdict p { margin: 1.5mm 0 0; }
 .verdict.pass { border-color: #2d6a2d; }
 .verdict.caution { border-color: #a86b00; border-style: dashed solid solid solid; }

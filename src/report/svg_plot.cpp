@@ -164,6 +164,12 @@ void SvgWriter::text(SvgPoint at, std::string_view content, const SvgTextStyle& 
             attribute("font-size", svg_number(style.size)) + attribute("fill", style.fill);
     if (style.anchor != TextAnchor::start) out_ += attribute("text-anchor", anchor_name(style.anchor));
     if (style.bold) out_ += attribute("font-weight", "bold");
+    if (!style.halo.empty()) {
+        // A band of the background colour behind the letters keeps a label
+        // readable where it crosses a line.
+        out_ += attribute("stroke", style.halo) + attribute("stroke-width", "3") + attribute("paint-order", "stroke") +
+                attribute("stroke-linejoin", "round");
+    }
     if (style.rotate_degrees != 0.0) {
         out_ += attribute("transform", "rotate(" + svg_number(style.rotate_degrees) + " " + svg_number(at.x) + " " +
                                            svg_number(at.y) + ")");
@@ -300,20 +306,20 @@ void draw_grid_and_frame(SvgWriter& svg, const Frame& f) {
 }
 
 void draw_y_axis(SvgWriter& svg, const Frame& f, const std::string& label) {
-    SvgTextStyle ticks{tick_font, TextAnchor::end, false, "#222", 0.0, "tick-label"};
+    SvgTextStyle ticks{tick_font, TextAnchor::end, false, "#222", 0.0, "tick-label", ""};
     for (const double v : f.y.values) {
         svg.text({f.left - 5.0, f.py(v) + 4.0}, format_tick(v, f.y.fraction_digits), ticks);
     }
-    SvgTextStyle axis{label_font, TextAnchor::middle, false, "#000", -90.0, "axis-label"};
+    SvgTextStyle axis{label_font, TextAnchor::middle, false, "#000", -90.0, "axis-label", ""};
     svg.text({16.0, f.top + f.height / 2.0}, label, axis);
 }
 
 void draw_x_axis(SvgWriter& svg, const Frame& f, const std::string& label) {
-    SvgTextStyle ticks{tick_font, TextAnchor::middle, false, "#222", 0.0, "tick-label"};
+    SvgTextStyle ticks{tick_font, TextAnchor::middle, false, "#222", 0.0, "tick-label", ""};
     for (const double v : f.x.values) {
         svg.text({f.px(v), f.bottom() + 15.0}, format_tick(v, f.x.fraction_digits), ticks);
     }
-    SvgTextStyle axis{label_font, TextAnchor::middle, false, "#000", 0.0, "axis-label"};
+    SvgTextStyle axis{label_font, TextAnchor::middle, false, "#000", 0.0, "axis-label", ""};
     svg.text({f.left + f.width / 2.0, f.bottom() + 33.0}, label, axis);
 }
 
@@ -346,15 +352,27 @@ void draw_series(SvgWriter& svg, const Frame& f, const PlotSeries& s, const Line
     svg.end_group();
 }
 
-void draw_limits(SvgWriter& svg, const Frame& f, const std::vector<LimitLine>& limits) {
-    SvgTextStyle label{10.0, TextAnchor::end, false, "#8b0000", 0.0, "limit-label"};
+void draw_limit_lines(SvgWriter& svg, const Frame& f, const std::vector<LimitLine>& limits) {
     for (const LimitLine& l : limits) {
         if (!std::isfinite(l.value)) continue;
         svg.begin_group("limit", l.label);
         svg.line({f.left, f.py(l.value)}, {f.right(), f.py(l.value)}, limit_style);
-        svg.text({f.right() - 4.0, f.py(l.value) - 3.0}, l.label, label);
         svg.end_group();
     }
+}
+
+// Drawn after the series, so that a label's halo keeps it readable where a
+// series crosses it.
+void draw_limit_labels(SvgWriter& svg, const Frame& f, const std::vector<LimitLine>& limits) {
+    SvgTextStyle label{10.0, TextAnchor::end, false, "#8b0000", 0.0, "limit-label", "#fff"};
+    svg.begin_group("limit-labels");
+    for (const LimitLine& l : limits) {
+        if (!std::isfinite(l.value)) continue;
+        // Above the line, or below it where the frame's top is too close.
+        const double y = f.py(l.value);
+        svg.text({f.right() - 4.0, y - f.top < 13.0 ? y + 11.0 : y - 3.0}, l.label, label);
+    }
+    svg.end_group();
 }
 
 struct LegendEntry {
@@ -365,7 +383,7 @@ struct LegendEntry {
 // One row of entries: a short sample of the line, then its label.
 void draw_legend(SvgWriter& svg, double left, double baseline, const std::vector<LegendEntry>& entries) {
     svg.begin_group("legend");
-    SvgTextStyle text{tick_font, TextAnchor::start, false, "#000", 0.0, "legend-label"};
+    SvgTextStyle text{tick_font, TextAnchor::start, false, "#000", 0.0, "legend-label", ""};
     double x = left;
     for (const LegendEntry& e : entries) {
         SvgStyle sample = e.line;
@@ -382,21 +400,21 @@ std::vector<LegendEntry> panel_legend(const PlotPanel& p) {
     for (std::size_t i = 0; i < p.series.size(); ++i) {
         entries.push_back({p.series[i].label, look_style(series_look(i), "")});
     }
-    if (!p.limits.empty()) entries.push_back({"limit", limit_style});
+    if (!p.limits.empty()) entries.push_back({p.limits_legend, limit_style});
     return entries;
 }
 
 void draw_title(SvgWriter& svg, double width, const std::string& title) {
     if (title.empty()) return;
-    svg.text({width / 2.0, 20.0}, title, SvgTextStyle{14.0, TextAnchor::middle, true, "#000", 0.0, "plot-title"});
+    svg.text({width / 2.0, 20.0}, title, SvgTextStyle{14.0, TextAnchor::middle, true, "#000", 0.0, "plot-title", ""});
 }
 
 }  // namespace
 
 std::string render_time_plot(const TimePlot& plot) {
-    const std::size_t panels = std::max<std::size_t>(plot.panels.size(), 1);
-    const double height = title_height + static_cast<double>(panels) * (legend_height + plot.panel_height) +
-                          static_cast<double>(panels - 1) * panel_gap + x_labels_height;
+    const auto panel_height = [&](const PlotPanel& p) { return p.height > 0.0 ? p.height : plot.panel_height; };
+    double height = title_height + x_labels_height;
+    for (const PlotPanel& p : plot.panels) height += legend_height + panel_height(p) + panel_gap;
     SvgWriter svg(plot.width, height, plot.title, "time plot with " + std::to_string(plot.panels.size()) + " panels");
     draw_title(svg, plot.width, plot.title);
 
@@ -417,14 +435,15 @@ std::string render_time_plot(const TimePlot& plot) {
             for (const double v : s.y) values.add(v);
         }
         for (const LimitLine& l : p.limits) values.add(l.value);
-        const Frame f{margin_left, top + legend_height, plot.width - margin_left - margin_right, plot.panel_height,
+        const Frame f{margin_left, top + legend_height, plot.width - margin_left - margin_right, panel_height(p),
                       x_ticks, values.ticks(5)};
         svg.begin_group("panel", axis_label(p.quantity, p.unit));
         draw_legend(svg, f.left, top + 14.0, panel_legend(p));
         draw_grid_and_frame(svg, f);
         draw_y_axis(svg, f, axis_label(p.quantity, p.unit));
-        draw_limits(svg, f, p.limits);
+        draw_limit_lines(svg, f, p.limits);
         for (std::size_t i = 0; i < p.series.size(); ++i) draw_series(svg, f, p.series[i], series_look(i), true);
+        draw_limit_labels(svg, f, p.limits);
         if (k + 1 == plot.panels.size()) draw_x_axis(svg, f, x_label);
         svg.end_group();
         top = f.bottom() + panel_gap;
@@ -458,7 +477,7 @@ Frame path_frame(const PathPlot& plot) {
 }
 
 void draw_obstacles(SvgWriter& svg, const Frame& f, const PathPlot& plot) {
-    SvgTextStyle label{10.0, TextAnchor::middle, false, "#222", 0.0, "obstacle-label"};
+    SvgTextStyle label{10.0, TextAnchor::middle, false, "#222", 0.0, "obstacle-label", "#e4e4e4"};
     const double scale = f.width / (f.x.high - f.x.low);
     for (const PlanRectangle& r : plot.rectangles) {
         svg.begin_group("obstacle", r.label);
