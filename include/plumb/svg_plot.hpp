@@ -66,6 +66,7 @@ public:
     void begin_group(std::string_view css_class, std::string_view label = {});
     void end_group();
 
+    // The document's text. The writer is spent afterwards.
     std::string finish();
 
 private:
@@ -141,6 +142,8 @@ struct PathPlot {
     double max_height = 480.0;  // of the plotting area; the scale is set by the tighter side
 };
 
+// Non-finite path points leave gaps; a non-finite obstacle coordinate is a
+// caller's error and throws std::invalid_argument.
 std::string render_path_plot(const PathPlot& plot);
 
 // Downsampling for size: the indices of the points to keep when a series of

@@ -375,20 +375,37 @@ void draw_limit_labels(SvgWriter& svg, const Frame& f, const std::vector<LimitLi
     svg.end_group();
 }
 
+enum class Marker { none, path_start, path_end };
+
 struct LegendEntry {
     std::string label;
     SvgStyle line;
+    Marker marker = Marker::none;
 };
 
-// One row of entries: a short sample of the line, then its label.
+const SvgStyle marker_outline{"#000", 1.5, "", "#fff", "path-start"};
+const SvgStyle marker_fill{"#000", 1.0, "", "#000", "path-end"};
+
+void draw_marker(SvgWriter& svg, SvgPoint at, Marker m, SvgStyle style) {
+    if (m == Marker::path_start) svg.circle(at, 4.0, style);
+    if (m == Marker::path_end) svg.rect(at.x - 3.5, at.y - 3.5, 7.0, 7.0, style);
+}
+
+// One row of entries: a short sample of the line (or the marker), then its label.
 void draw_legend(SvgWriter& svg, double left, double baseline, const std::vector<LegendEntry>& entries) {
     svg.begin_group("legend");
     SvgTextStyle text{tick_font, TextAnchor::start, false, "#000", 0.0, "legend-label", ""};
     double x = left;
     for (const LegendEntry& e : entries) {
-        SvgStyle sample = e.line;
-        sample.css_class = "legend-line";
-        svg.line({x, baseline - 4.0}, {x + 26.0, baseline - 4.0}, sample);
+        if (e.marker == Marker::none) {
+            SvgStyle sample = e.line;
+            sample.css_class = "legend-line";
+            svg.line({x, baseline - 4.0}, {x + 26.0, baseline - 4.0}, sample);
+        } else {
+            SvgStyle sample = e.marker == Marker::path_start ? marker_outline : marker_fill;
+            sample.css_class = "legend-marker";
+            draw_marker(svg, {x + 13.0, baseline - 4.0}, e.marker, sample);
+        }
         svg.text({x + 31.0, baseline}, e.label, text);
         x += 31.0 + 6.2 * static_cast<double>(e.label.size()) + 18.0;
     }
@@ -504,9 +521,10 @@ void draw_start_and_end(SvgWriter& svg, const Frame& f, const PlotSeries& s, con
         last = i;
     }
     if (first == n) return;
-    svg.circle({f.px(s.x[first]), f.py(s.y[first])}, 4.0, SvgStyle{look.colour, 1.5, "", "#fff", "path-start"});
-    svg.rect(f.px(s.x[last]) - 3.5, f.py(s.y[last]) - 3.5, 7.0, 7.0,
-             SvgStyle{look.colour, 1.0, "", look.colour, "path-end"});
+    SvgStyle start = marker_outline, end = marker_fill;
+    start.stroke = end.stroke = end.fill = look.colour;
+    draw_marker(svg, {f.px(s.x[first]), f.py(s.y[first])}, Marker::path_start, start);
+    draw_marker(svg, {f.px(s.x[last]), f.py(s.y[last])}, Marker::path_end, end);
 }
 
 }  // namespace
@@ -522,7 +540,8 @@ std::string render_path_plot(const PathPlot& plot) {
         legend.push_back({plot.paths[i].label, look_style(series_look(i), "")});
     }
     if (!plot.paths.empty()) {
-        legend.push_back({"start: circle, end: square", SvgStyle{"none", 0.0, "", "none", ""}});
+        legend.push_back({"start", {}, Marker::path_start});
+        legend.push_back({"end", {}, Marker::path_end});
     }
     draw_legend(svg, f.left, title_height + 14.0, legend);
     draw_grid_and_frame(svg, f);
