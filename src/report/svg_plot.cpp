@@ -245,7 +245,7 @@ const LineLook& series_look(std::size_t index) {
         {"#1b3a6b", 2.0, ""},
         {"#b2551b", 1.6, "7 3"},
         {"#2f6b2f", 2.2, "1.5 2.5"},
-        {"#6b2f6b", 1.2, "9 3 2 3"},
+        {"#6b2f6b", 1.4, "10 2 2 2 2 2"},  // dash-dot-dot: apart from the limits' dash-dot
         {"#555555", 0.9, ""},
     }};
     return looks[index % looks.size()];
