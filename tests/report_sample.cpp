@@ -122,7 +122,7 @@ int main(int argc, char** argv) {
     plumb::HtmlDocument doc("Lift plan attachment: Sample transformer move", paper_from(argc > 2 ? argv[2] : "either"));
     doc.title_block({"Sample transformer move", "SAMPLE-7 rev A", "2026-12-02 06:30 UTC", "0.1.0", "sample.yaml",
                      plumb::sha256_hex(job_text)});
-    doc.verdict_banner({plumb::ReportVerdict::caution, 1, {"residual load swing"},
+    doc.verdict_banner({plumb::Verdict::caution, 1, {"residual load swing"},
                         "The load keeps swinging 0.21 m after the move stops, above the 0.20 m set for setting down."});
     doc.begin_section("Checks");
     doc.table(checks_table());

@@ -21,7 +21,7 @@ plumb::ReportTitleBlock sample_title() {
             "ba7816bf8f01cfea414140de5dae2223b00361a396177a9cb410ff61f20015ad"};
 }
 
-std::string sample_document(plumb::ReportVerdict verdict, int not_checked) {
+std::string sample_document(plumb::Verdict verdict, int not_checked) {
     plumb::HtmlDocument doc("Lift plan attachment", plumb::PaperSize::a4);
     doc.title_block(sample_title());
     doc.verdict_banner({verdict, not_checked, {"load offset", "hoist rope tension"}, "Checked over 40 s."});
@@ -53,7 +53,7 @@ std::string verdict_text(const XmlDocument& doc) {
 }  // namespace
 
 TEST_CASE("the report document parses as XML and holds title block, verdict, table, figure, cautions and sign-off") {
-    const XmlDocument doc(sample_document(plumb::ReportVerdict::fail, 0));
+    const XmlDocument doc(sample_document(plumb::Verdict::fail, 0));
     CHECK(doc.values("/html/head/title") == std::vector<std::string>{"Lift plan attachment"});
     CHECK(doc.values("//h1") == std::vector<std::string>{"Pump skid onto plinth 3"});
     const auto title_rows = doc.values("//table[@class='title-block']//td");
@@ -72,7 +72,7 @@ TEST_CASE("the report document parses as XML and holds title block, verdict, tab
 }
 
 TEST_CASE("the report document is self-contained: no scripts, links, fonts or remote resources") {
-    const std::string html = sample_document(plumb::ReportVerdict::pass, 0);
+    const std::string html = sample_document(plumb::Verdict::pass, 0);
     const XmlDocument doc(html);
     CHECK(doc.count("//script") == 0);
     CHECK(doc.count("//link") == 0);
@@ -92,7 +92,7 @@ TEST_CASE("the report document is self-contained: no scripts, links, fonts or re
 }
 
 TEST_CASE("the report's print styles set the page, break between sections and keep plots and tables whole") {
-    const std::string a4 = sample_document(plumb::ReportVerdict::pass, 0);
+    const std::string a4 = sample_document(plumb::Verdict::pass, 0);
     CHECK(a4.find("@page { size: A4 portrait;") != std::string::npos);
     CHECK(a4.find("section.new-page { break-before: page;") != std::string::npos);
     CHECK(a4.find("figure, table, .verdict, .notes, .sign-off, .title-block { break-inside: avoid;") !=
@@ -107,18 +107,18 @@ TEST_CASE("the report's print styles set the page, break between sections and ke
 }
 
 TEST_CASE("the verdict banner says its verdict in words") {
-    CHECK(verdict_text(XmlDocument(sample_document(plumb::ReportVerdict::pass, 0))).find("Result: PASS") !=
+    CHECK(verdict_text(XmlDocument(sample_document(plumb::Verdict::pass, 0))).find("Result: PASS") !=
           std::string::npos);
-    CHECK(verdict_text(XmlDocument(sample_document(plumb::ReportVerdict::caution, 0))).find("Result: CAUTION") !=
+    CHECK(verdict_text(XmlDocument(sample_document(plumb::Verdict::caution, 0))).find("Result: CAUTION") !=
           std::string::npos);
-    const std::string fail = verdict_text(XmlDocument(sample_document(plumb::ReportVerdict::fail, 0)));
+    const std::string fail = verdict_text(XmlDocument(sample_document(plumb::Verdict::fail, 0)));
     CHECK(fail.find("Result: FAIL") != std::string::npos);
     CHECK(fail.find("Set by: load offset; hoist rope tension") != std::string::npos);
     CHECK(fail.find("NOT CHECKED") == std::string::npos);
 }
 
 TEST_CASE("a pass with checks not made reads as incomplete with the NOT CHECKED count in the headline") {
-    const XmlDocument doc(sample_document(plumb::ReportVerdict::pass, 2));
+    const XmlDocument doc(sample_document(plumb::Verdict::pass, 2));
     const auto headline = doc.values("//div[@id='verdict']/p[@class='word']");
     REQUIRE(headline.size() == 1);
     CHECK(headline[0] == "Result: PASS (incomplete: 2 checks NOT CHECKED)");

@@ -10,6 +10,8 @@
 #include <string_view>
 #include <vector>
 
+#include "plumb/assessment.hpp"
+
 namespace plumb {
 
 struct ReportTitleBlock {
@@ -21,17 +23,12 @@ struct ReportTitleBlock {
     std::string job_file_sha256;
 };
 
-enum class ReportVerdict { pass, caution, fail };
-
 struct VerdictBanner {
-    ReportVerdict verdict = ReportVerdict::fail;
+    Verdict verdict = Verdict::fail;  // the words come from verdict_word() (assessment.hpp)
     int not_checked = 0;                   // checks that could not be made
     std::vector<std::string> driven_by;    // the checks that set the verdict
     std::string summary;                   // one sentence, optional
 };
-
-// The word of a verdict: "PASS", "CAUTION", "FAIL".
-std::string_view verdict_word(ReportVerdict v);
 
 enum class ColumnAlign { left, right };
 

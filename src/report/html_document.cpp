@@ -101,19 +101,10 @@ std::string checks_word(int n) { return std::to_string(n) + (n == 1 ? " check" :
 
 }  // namespace
 
-std::string_view verdict_word(ReportVerdict v) {
-    switch (v) {
-        case ReportVerdict::pass: return "PASS";
-        case ReportVerdict::caution: return "CAUTION";
-        case ReportVerdict::fail: break;
-    }
-    return "FAIL";
-}
-
 namespace {
 
 // The banner's class: the verdict word in lower case ("pass", "caution", "fail").
-std::string verdict_class(ReportVerdict v) {
+std::string verdict_class(Verdict v) {
     std::string css(verdict_word(v));
     std::transform(css.begin(), css.end(), css.begin(), [](unsigned char c) { return static_cast<char>(std::tolower(c)); });
     return css;
