@@ -64,6 +64,8 @@ public:
     // Build from a speed history: speed linear between samples, at rest after the last.
     static SupportMotion from_speed_history(const std::vector<SpeedSample>& samples);
     static SupportMotion from_spec(const SupportMotionSpec& spec);
+    // Build from a contiguous piece list that starts and ends at rest (shaped_motion.cpp).
+    static SupportMotion from_pieces(std::vector<MotionPiece> pieces);
 
     // The state at time t, evaluated on the piece that holds t (t < 0: at rest at 0).
     SupportState at(double t) const;
