@@ -156,6 +156,15 @@ TEST_CASE("whole-period moves leave no residual swing", "[shaped_motion]") {
             CHECK(motion.final_position() == planned.distance);
             CHECK(motion.peak_speed() == Approx(m.top_speed).epsilon(1e-9));  // reaches its (lowered) top speed
             CHECK(residual_swing(motion, length) < 1e-9 * residual_swing(SupportMotion::from_moves({planned}), length) + 1e-12);
+            // The fastest of its kind: one limit is reached (top speed, acceleration,
+            // jerk ramp filling the width, or the distance: no coast).
+            const double width = n * period;
+            const double ramp = planned.jerk ? m.acceleration / *planned.jerk : 0.0;
+            const bool no_coast = std::fabs(motion.end_of_motion() - 2 * (width + ramp)) < 1e-9;
+            const bool at_top_speed = m.top_speed == Approx(planned.top_speed).epsilon(1e-12);
+            const bool at_acceleration = m.acceleration == Approx(planned.acceleration).epsilon(1e-12);
+            const bool at_jerk = planned.jerk && m.top_speed == Approx(*planned.jerk * width * width).epsilon(1e-12);
+            CHECK((no_coast || at_top_speed || at_acceleration || at_jerk));
         }
     }
 }
