@@ -15,6 +15,7 @@
 #include <boost/numeric/odeint.hpp>
 
 #include "plumb/errors.hpp"
+#include "plumb/search.hpp"
 #include "plumb/shaped_motion.hpp"
 
 using namespace plumb;
@@ -180,4 +181,37 @@ TEST_CASE("a move whose acceleration time misses a whole number of periods leave
 TEST_CASE("shaping refuses a motion that does not start at rest", "[shaped_motion]") {
     std::vector<MotionPiece> pieces{{0, 1, {0, 1, 0}, 0}, {1, INFINITY, {1, 1, 0}, 0}};
     CHECK_THROWS_AS(shaped_pieces(pieces, zv_shaper({1, 0})), InputError);
+}
+
+TEST_CASE("an emergency stop brakes from the speed reached to rest at the stopping distance", "[shaped_motion]") {
+    // 10 m at 1 m/s, 0.4 m/s^2; stop at 6 s while coasting at 1 m/s, at 0.8 m/s^2:
+    // position at 6 s is 1.25 + 3.5 = 4.75 m; braking takes 1.25 s over 0.625 m [kinematics].
+    const SupportMotion planned = SupportMotion::from_moves({move(10, 1.0, 0.4)});
+    const SupportMotion stopped = stop_motion(planned, 6.0, 0.8);
+    CHECK(stopped.end_of_motion() == Approx(7.25).epsilon(1e-14));
+    CHECK(stopped.final_position() == Approx(5.375).epsilon(1e-14));
+    CHECK(stopped.at(6.5).acceleration == Approx(-0.8).epsilon(1e-14));
+    CHECK(stopped.peak_speed() == Approx(1.0).epsilon(1e-14));
+    // Stopping while accelerating (at 1 s: 0.4 m/s, 0.2 m) and before the move starts.
+    CHECK(stop_motion(planned, 1.0, 0.8).final_position() == Approx(0.2 + 0.4 * 0.4 / 1.6).epsilon(1e-14));
+    CHECK(stop_motion(planned, 0.0, 0.8).final_position() == 0.0);
+    // A reverse move brakes forwards.
+    const SupportMotion back = stop_motion(SupportMotion::from_moves({move(-10, 1.0, 0.4)}), 6.0, 0.8);
+    CHECK(back.at(6.5).acceleration == Approx(0.8).epsilon(1e-14));
+    CHECK(back.final_position() == Approx(-5.375).epsilon(1e-14));
+}
+
+TEST_CASE("the worst emergency stop while coasting doubles the swing left by the start", "[shaped_motion]") {
+    // Accelerating at a for Ta leaves swing 2 (a/g)|sin(pi Ta/T)| while coasting
+    // (validation-sources sec. 2 [derived]); braking at d = a for Tb = Ta adds a
+    // swing of the same size whose phase depends on the stop time, so the worst
+    // stop leaves 4 (a/g)|sin(pi Ta/T)| (in phase) [derived]. Searched over the
+    // coast (scan of 60 points, about 9 a period, then Brent).
+    const double a = 0.4, v = 1.0, Ta = v / a, T = 2 * pi / omega;
+    const SupportMotion planned = SupportMotion::from_moves({move(30, v, a)});
+    auto swing_after_stop = [&](double t) { return residual_swing(stop_motion(planned, t, a), length); };
+    const WorstCase w = worst_case(swing_after_stop, Ta, 30 / v, 60);
+    CHECK(w.badness == Approx(4 * a / g * std::fabs(std::sin(pi * Ta / T))).epsilon(1e-9));
+    // The best stop, half a period later, cancels it.
+    CHECK(swing_after_stop(w.argument + T / 2) < 1e-6);
 }

@@ -35,4 +35,13 @@ SupportMotion shape_motion(const SupportMotion& planned, const InputShaper& shap
 // top speed, lowered where the distance is too short to reach it.
 Move whole_period_move(const Move& planned, double swing_period, int periods);
 
+// The planned motion cut short by an emergency stop at stop_time: from there
+// the drive decelerates at `deceleration` (> 0, m/s^2, a step change of
+// acceleration, as a drive's quick stop) until the support stands, and stays
+// at rest. A stop while the support stands already holds it where it is.
+std::vector<MotionPiece> stopped_pieces(const std::vector<MotionPiece>& planned, double stop_time, double deceleration);
+
+// The same as a SupportMotion.
+SupportMotion stop_motion(const SupportMotion& planned, double stop_time, double deceleration);
+
 }  // namespace plumb

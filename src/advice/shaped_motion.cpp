@@ -121,6 +121,38 @@ Move whole_period_move(const Move& planned, double swing_period, int periods) {
     return move;
 }
 
+std::vector<MotionPiece> stopped_pieces(const std::vector<MotionPiece>& planned, double stop_time, double deceleration) {
+    require_rest_to_rest(planned);
+    if (!(deceleration > 0) || !(stop_time >= 0)) {
+        throw InputError("emergency stop: the deceleration must be positive and the stop time not negative");
+    }
+    std::vector<MotionPiece> stopped;
+    for (const MotionPiece& p : planned) {
+        if (p.start >= stop_time) break;
+        stopped.push_back(p);
+        stopped.back().end = std::min(p.end, stop_time);
+    }
+    if (stopped.empty()) stopped.push_back({0, stop_time, planned.front().at_start, 0});
+    const SupportState at_stop = state_on(stopped.back(), stop_time);
+    // Braking against the direction of travel: v(t) = v0 - sign(v0) d t, standing after |v0|/d.
+    const double braking_time = std::fabs(at_stop.speed) / deceleration;
+    const double braking = at_stop.speed < 0 ? deceleration : -deceleration;
+    double rest_start = stop_time;
+    SupportState rest = {at_stop.position, 0, 0};
+    if (braking_time > 0) {
+        stopped.push_back({stop_time, stop_time + braking_time, {at_stop.position, at_stop.speed, braking}, 0});
+        rest_start += braking_time;
+        rest.position = at_stop.position + at_stop.speed * braking_time / 2;
+    }
+    if (stopped.front().end <= 0) stopped.erase(stopped.begin());  // a stop at t = 0 leaves no planned piece
+    stopped.push_back({rest_start, infinity, rest, 0});
+    return stopped;
+}
+
+SupportMotion stop_motion(const SupportMotion& planned, double stop_time, double deceleration) {
+    return SupportMotion::from_pieces(stopped_pieces(planned.pieces(), stop_time, deceleration));
+}
+
 // Declared in motion.hpp; defined here, beside its only user, so that the
 // motion file stays as it is. The piece list comes from shaped_pieces().
 SupportMotion SupportMotion::from_pieces(std::vector<MotionPiece> pieces) {
