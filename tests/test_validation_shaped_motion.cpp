@@ -215,3 +215,27 @@ TEST_CASE("the worst emergency stop while coasting doubles the swing left by the
     // The best stop, half a period later, cancels it.
     CHECK(swing_after_stop(w.argument + T / 2) < 1e-6);
 }
+
+TEST_CASE("a shaped move written as a speed history reproduces its speeds and distance", "[shaped_motion]") {
+    // Linear interpolation of a parabola of second derivative j over h errs by
+    // j h^2 / 8 at most, and its area by j h^3 / 12 per step [derived, trapezoid rule].
+    const SupportMotion planned = SupportMotion::from_moves({move(7, 0.9, 0.5, 0.8)});
+    const SupportMotion shaped = shape_motion(planned, zvd_shaper({omega, 0}));
+    const double tolerance = 1e-3;  // m/s
+    const std::vector<SpeedSample> history = speed_history(shaped, tolerance);
+    const SupportMotion replayed = SupportMotion::from_speed_history(history);
+    for (double t = 0; t < shaped.end_of_motion() + 1; t += 0.01) {
+        CHECK(replayed.at(t).speed == Approx(shaped.at(t).speed).margin(tolerance));
+    }
+    for (const SpeedSample& s : history) CHECK(s.speed == Approx(shaped.at(s.time).speed).margin(1e-12));
+    double distance_bound = 0;
+    for (std::size_t k = 0; k + 1 < history.size(); ++k) {
+        const double h = history[k + 1].time - history[k].time;
+        distance_bound += 0.8 * h * h * h / 12;  // |jerk| <= 0.8 m/s^3 on every shaped piece
+    }
+    CHECK(replayed.final_position() == Approx(7.0).margin(distance_bound));
+    CHECK(history.back().speed == 0.0);
+    // A motion without jerk is written exactly: one sample per break.
+    const SupportMotion trapezoid = SupportMotion::from_moves({move(10, 1.0, 0.4)});
+    CHECK(speed_history(trapezoid, tolerance).size() == trapezoid.pieces().size());
+}

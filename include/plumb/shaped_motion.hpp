@@ -41,6 +41,16 @@ Move whole_period_move(const Move& planned, double swing_period, int periods);
 // at rest. A stop while the support stands already holds it where it is.
 std::vector<MotionPiece> stopped_pieces(const std::vector<MotionPiece>& planned, double stop_time, double deceleration);
 
+// The motion as a speed history a job file (motion.speed_history) or a drive's
+// speed table can take: speed linear between samples. Samples fall on every
+// break of the motion with the exact speed there; a piece of constant jerk,
+// whose speed is a parabola, is split into equal steps so that the linear
+// speed between them is within speed_tolerance (m/s) of the parabola: steps of
+// at most sqrt(8 tol / |jerk|). The distance then differs by jerk h^3 / 12 per
+// step, which cancels between the rising and falling ramps of a symmetric
+// S-curve. The last sample is the support at rest after the motion.
+std::vector<SpeedSample> speed_history(const SupportMotion& motion, double speed_tolerance);
+
 // The same as a SupportMotion.
 SupportMotion stop_motion(const SupportMotion& planned, double stop_time, double deceleration);
 

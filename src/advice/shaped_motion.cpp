@@ -153,6 +153,25 @@ SupportMotion stop_motion(const SupportMotion& planned, double stop_time, double
     return SupportMotion::from_pieces(stopped_pieces(planned.pieces(), stop_time, deceleration));
 }
 
+std::vector<SpeedSample> speed_history(const SupportMotion& motion, double speed_tolerance) {
+    if (!(speed_tolerance > 0)) throw InputError("speed history: the speed tolerance must be positive");
+    const auto& pieces = motion.pieces();
+    std::vector<SpeedSample> samples{{0.0, pieces.front().at_start.speed}};
+    for (std::size_t k = 0; k + 1 < pieces.size(); ++k) {
+        const MotionPiece& p = pieces[k];
+        const double length = p.end - p.start;
+        // Linear interpolation of a parabola with second derivative j over h errs by at most j h^2 / 8.
+        const double longest = p.jerk == 0 ? infinity : std::sqrt(8 * speed_tolerance / std::fabs(p.jerk));
+        const auto steps = static_cast<std::size_t>(std::max(1.0, std::ceil(length / longest)));
+        for (std::size_t i = 1; i <= steps; ++i) {
+            const double t = i == steps ? p.end : p.start + length * static_cast<double>(i) / static_cast<double>(steps);
+            samples.push_back({t, state_on(p, t).speed});
+        }
+    }
+    samples.back().speed = 0;  // at rest, exactly, when the motion ends
+    return samples;
+}
+
 // Declared in motion.hpp; defined here, beside its only user, so that the
 // motion file stays as it is. The piece list comes from shaped_pieces().
 SupportMotion SupportMotion::from_pieces(std::vector<MotionPiece> pieces) {
