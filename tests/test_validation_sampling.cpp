@@ -127,6 +127,22 @@ TEST_CASE("a uniform distribution maps standard normals through the normal distr
     const Distribution d = Distribution::uniform(2.0, 6.0);
     CHECK(d.from_standard_normal(0.0) == Approx(4.0).epsilon(1e-15));
     CHECK(d.from_standard_normal(1.0) == Approx(2.0 + 4 * boost::math::cdf(standard_normal_reference, 1.0)).epsilon(1e-14));
+    CHECK(d.from_standard_normal(-1.0) == Approx(2.0 + 4 * boost::math::cdf(standard_normal_reference, -1.0)).epsilon(1e-14));
+}
+
+TEST_CASE("bounded distributions map far tails of the standard normal inside their bounds", "[sampling]") {
+    // Subset simulation walks to z of 5 and more; Phi(9) rounds to 1 in double precision.
+    const Distribution u = Distribution::uniform(2.0, 6.0);
+    CHECK(u.from_standard_normal(7.0) < 6.0);
+    CHECK(6.0 - u.from_standard_normal(7.0) == Approx(4 * boost::math::cdf(standard_normal_reference, -7.0)).epsilon(1e-3));
+    CHECK(u.from_standard_normal(9.0) <= 6.0);
+    const Distribution t = Distribution::truncated_normal(3.0, 0.5, 2.0, 4.5);
+    for (const double z : {-40.0, -9.0, 9.0, 40.0}) {
+        const double x = t.from_standard_normal(z);
+        CHECK(x >= 2.0);
+        CHECK(x <= 4.5);
+    }
+    CHECK(t.from_standard_normal(40.0) > t.from_standard_normal(5.0));
 }
 
 TEST_CASE("a Latin hypercube puts one point in every stratum of every dimension", "[sampling]") {

@@ -148,7 +148,11 @@ double Distribution::from_standard_normal(double z) const {
         const double x = a + b * z;
         return kind == Kind::lognormal ? std::exp(x) : x;
     }
-    return quantile(normal_cdf(z));
+    // Work from the nearer tail so that a far z keeps its digits (Phi(9) rounds to 1).
+    if (kind == Kind::uniform) return z <= 0 ? a + (b - a) * normal_cdf(z) : b - (b - a) * normal_cdf(-z);
+    // Beyond z = +-8.3, where Phi rounds to 0 or 1, the nearest bound's neighbourhood is all there is.
+    constexpr double last_below_one = 1 - 0x1p-53;
+    return quantile(std::clamp(normal_cdf(z), std::numeric_limits<double>::min(), last_below_one));
 }
 
 std::vector<std::vector<double>> latin_hypercube(std::size_t samples, std::size_t dimensions, RandomStream& stream) {
