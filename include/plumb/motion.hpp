@@ -67,6 +67,8 @@ public:
     static SupportMotion from_spec(const SupportMotionSpec& spec);
     // No motion at all: one endless piece at rest at 0.
     static SupportMotion at_rest();
+    // Build from a contiguous piece list that starts and ends at rest (shaped_motion.cpp).
+    static SupportMotion from_pieces(std::vector<MotionPiece> pieces);
 
     // The state at time t, evaluated on the piece that holds t (t < 0: at rest at 0).
     SupportState at(double t) const;
