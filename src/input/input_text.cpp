@@ -1,5 +1,7 @@
 #include "input/input_text.hpp"
 
+#include "plumb/utf8.hpp"
+
 #include <charconv>
 #include <cmath>
 #include <cstdio>
@@ -11,33 +13,6 @@ namespace plumb::input {
 namespace {
 
 constexpr double pi = std::numbers::pi;
-
-// Length of the valid UTF-8 sequence starting at text[i], or 0 if there is none
-// (overlong forms, surrogates and code points past U+10FFFF are invalid).
-std::size_t utf8_length(std::string_view text, std::size_t i) {
-    const auto byte = [&](std::size_t k) { return static_cast<unsigned char>(text[k]); };
-    const unsigned char b0 = byte(i);
-    if (b0 < 0x80) return 1;
-    std::size_t n = 0;
-    unsigned low = 0x80, high = 0xBF;  // allowed range of the second byte
-    if (b0 >= 0xC2 && b0 <= 0xDF) n = 2;
-    else if (b0 >= 0xE0 && b0 <= 0xEF) {
-        n = 3;
-        if (b0 == 0xE0) low = 0xA0;
-        if (b0 == 0xED) high = 0x9F;
-    } else if (b0 >= 0xF0 && b0 <= 0xF4) {
-        n = 4;
-        if (b0 == 0xF0) low = 0x90;
-        if (b0 == 0xF4) high = 0x8F;
-    } else {
-        return 0;
-    }
-    if (i + n > text.size()) return 0;
-    if (byte(i + 1) < low || byte(i + 1) > high) return 0;
-    for (std::size_t k = 2; k < n; ++k)
-        if (byte(i + k) < 0x80 || byte(i + k) > 0xBF) return 0;
-    return n;
-}
 
 // C0 controls but the tab, DEL, and the C1 controls U+0080..U+009F.
 bool is_control(std::string_view text, std::size_t i, std::size_t length) {
@@ -114,7 +89,7 @@ std::string printable(std::string_view text) {
     std::string out;
     out.reserve(text.size());
     for (std::size_t i = 0; i < text.size();) {
-        const std::size_t n = utf8_length(text, i);
+        const std::size_t n = utf8_sequence_length(text, i);
         if (n == 0 || is_control(text, i, n) || text[i] == '\t') {
             out += '?';
             i += n == 0 ? 1 : n;
@@ -128,7 +103,7 @@ std::string printable(std::string_view text) {
 
 std::string text_problem(std::string_view text) {
     for (std::size_t i = 0; i < text.size();) {
-        const std::size_t n = utf8_length(text, i);
+        const std::size_t n = utf8_sequence_length(text, i);
         if (n == 0)
             return "the text is not valid UTF-8 (byte " + std::to_string(i + 1) +
                    "); save the file as UTF-8";

@@ -7,6 +7,7 @@
 #include <stdexcept>
 
 #include "plumb/nice_ticks.hpp"
+#include "plumb/utf8.hpp"
 
 namespace plumb {
 
@@ -16,34 +17,12 @@ namespace {
 
 constexpr std::string_view replacement_character = "\xEF\xBF\xBD";  // U+FFFD
 
-bool is_continuation(unsigned char c) { return (c & 0xC0) == 0x80; }
-
 // Length of the well-formed UTF-8 sequence of a character XML allows at
 // text[i] (lead byte >= 0x80), or 0 if it is malformed or forbidden.
 std::size_t valid_utf8_length(std::string_view text, std::size_t i) {
-    const auto byte = [&](std::size_t k) { return static_cast<unsigned char>(text[i + k]); };
-    const unsigned char lead = byte(0);
-    std::size_t length = 0;
-    unsigned char second_low = 0x80, second_high = 0xBF;  // bounds that exclude overlong forms and surrogates
-    if (lead >= 0xC2 && lead <= 0xDF) length = 2;
-    else if (lead >= 0xE0 && lead <= 0xEF) {
-        length = 3;
-        if (lead == 0xE0) second_low = 0xA0;
-        if (lead == 0xED) second_high = 0x9F;
-    } else if (lead >= 0xF0 && lead <= 0xF4) {
-        length = 4;
-        if (lead == 0xF0) second_low = 0x90;
-        if (lead == 0xF4) second_high = 0x8F;
-    } else {
-        return 0;
-    }
-    if (i + length > text.size()) return 0;
-    if (byte(1) < second_low || byte(1) > second_high) return 0;
-    for (std::size_t k = 2; k < length; ++k) {
-        if (!is_continuation(byte(k))) return 0;
-    }
+    const std::size_t length = utf8_sequence_length(text, i);
     // U+FFFE and U+FFFF are not XML characters.
-    if (length == 3 && lead == 0xEF && byte(1) == 0xBF && byte(2) >= 0xBE) return 0;
+    if (length == 3 && text.substr(i, 2) == "\xEF\xBF" && static_cast<unsigned char>(text[i + 2]) >= 0xBE) return 0;
     return length;
 }
 
@@ -103,7 +82,9 @@ std::string svg_number(double value, int max_decimals) {
 namespace {
 
 std::string attribute(std::string_view name, std::string_view value) {
-    return " " + std::string(name) + "=\"" + escape_xml(value) + "\"";
+    std::string out(" ");
+    out.append(name).append("=\"").append(escape_xml(value)).push_back('"');
+    return out;
 }
 
 std::string style_attributes(const SvgStyle& s) {
