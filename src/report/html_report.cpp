@@ -26,8 +26,10 @@ namespace {
 // Columns a time plot is thinned to: about one point per drawn pixel column
 // (peaks survive, downsample_keep_extremes keeps each column's extremes).
 constexpr std::size_t plot_columns = 700;
-// Points a path is thinned to (evenly), so the file stays small.
-constexpr std::size_t max_path_points = 4000;
+// Points a path is thinned to (evenly), so the file stays small; few enough
+// that the time-plot writer does not thin it again by columns (a path's x
+// is not ascending).
+constexpr std::size_t max_path_points = 2000;
 // Plot steps per period of the fastest swing mode, and the most plot points over a run.
 constexpr double points_per_period = 40.0;
 constexpr double max_plot_points = 8000.0;
@@ -132,27 +134,35 @@ std::vector<std::size_t> path_points(std::size_t n) {
     return keep;
 }
 
-// A path of positions relative to the support: axes (i, j) of the vectors.
-PlotSeries position_path(const std::vector<Observation>& trace, const Eigen::Vector3d Observation::*where,
-                         int i, int j, std::string label, UnitSystem u) {
+// The load's path relative to the support: axes (i, j) of its position,
+// with from_least, axis j measured from its least value over the run (the
+// height: short tick labels instead of "-9.0995").
+PlotSeries load_path(const std::vector<Observation>& trace, int i, int j, bool from_least, std::string label,
+                     UnitSystem u) {
+    double least_j = from_least ? INFINITY : 0.0;
+    if (from_least) {
+        for (const Observation& o : trace) least_j = std::min(least_j, o.load_cg[j]);
+    }
     PlotSeries s{std::move(label), {}, {}};
     for (std::size_t k : path_points(trace.size())) {
-        const Eigen::Vector3d& p = trace[k].*where;
+        const Eigen::Vector3d& p = trace[k].load_cg;
         s.x.push_back(shown_value(p[i], Dimension::length, u));
-        s.y.push_back(shown_value(p[j], Dimension::length, u));
+        s.y.push_back(shown_value(p[j] - least_j, Dimension::length, u));
     }
     return s;
 }
 
+// The side view: the rise is millimetres where the swing is decimetres, so
+// the vertical scale is stretched (a time plot's frame with x along the travel).
 std::string side_path_plot(const std::vector<Observation>& trace, UnitSystem u) {
-    PathPlot plot;
-    plot.title = "Hook block and load relative to the support (side view)";
-    plot.x_quantity = "along the travel";
-    plot.y_quantity = "height below the support";
-    plot.unit = unit_of(Dimension::length, u);
-    plot.paths = {position_path(trace, &Observation::hook_block, 0, 2, "hook block", u),
-                  position_path(trace, &Observation::load_cg, 0, 2, "load centre of gravity", u)};
-    return render_path_plot(plot);
+    TimePlot plot;
+    plot.title = "Load relative to the support (side view, height stretched)";
+    plot.x_quantity = "along the travel, from the support";
+    plot.x_unit = unit_of(Dimension::length, u);
+    plot.panels.push_back({"rise above its lowest point", unit_of(Dimension::length, u),
+                           {load_path(trace, 0, 2, true, "load centre of gravity", u)}, {}});
+    plot.panels.back().height = 160.0;
+    return render_time_plot(plot);
 }
 
 // A 3-D model moves the load across the travel too: then the plan view.
@@ -167,7 +177,7 @@ std::string plan_path_plot(const std::vector<Observation>& trace, UnitSystem u) 
     plot.x_quantity = "along the travel";
     plot.y_quantity = "across the travel";
     plot.unit = unit_of(Dimension::length, u);
-    plot.paths = {position_path(trace, &Observation::load_cg, 0, 1, "load centre of gravity", u)};
+    plot.paths = {load_path(trace, 0, 1, false, "load centre of gravity", u)};
     return render_path_plot(plot);
 }
 
@@ -195,7 +205,6 @@ ReportTable checks_table(const LiftAssessment& a, UnitSystem u) {
     ReportTable t;
     t.caption = "Checks against the job's limits";
     t.columns = {{"check"},
-                 {"what is checked"},
                  {"value", ColumnAlign::right},
                  {"limit", ColumnAlign::right},
                  {"utilisation", ColumnAlign::right},
@@ -203,9 +212,7 @@ ReportTable checks_table(const LiftAssessment& a, UnitSystem u) {
                  {"first exceeded", ColumnAlign::right},
                  {"result"}};
     for (const CheckResult& c : a.checks) {
-        std::string what = c.description;
-        if (!c.note.empty()) what += ". " + c.note;
-        t.add_row({c.name, what, qty(c.value, c.dimension, u), qty(c.limit, c.dimension, u), utilisation(c),
+        t.add_row({c.name, qty(c.value, c.dimension, u), qty(c.limit, c.dimension, u), utilisation(c),
                    "t = " + when(c.value_time, a.prediction),
                    c.first_exceedance ? "t = " + seconds(*c.first_exceedance) : "never", verdict_word(c.verdict)},
                   verdict_mark(c.verdict));
@@ -376,6 +383,9 @@ std::string format_html_report(const LiftAssessment& a, const std::vector<Observ
 
     doc.begin_section("Checks");
     doc.table(checks_table(a, units));
+    for (const CheckResult& c : a.checks) {
+        doc.paragraph(c.name + ": " + c.description + (c.note.empty() ? "." : ". " + c.note));
+    }
     doc.paragraph("Utilisation: the value as a share of its limit; a value above " +
                   percent(job.limits.caution_fraction) + " of its limit is a CAUTION, above 100 % a FAIL.");
     if (const std::optional<double> valid_until = p.valid_until()) {
@@ -406,7 +416,7 @@ std::string format_html_report(const LiftAssessment& a, const std::vector<Observ
         doc.figure(tension_plot(a, trace, units),
                    "Tensions against time with the WLL lines and the static values (everything hanging at rest).");
         doc.figure(side_path_plot(trace, units),
-                   "The hook block's and the load's paths relative to the support, at equal scale on both axes.");
+                   "The load's path relative to the support: how far it swings out along the travel and how much it rises. The vertical scale is stretched.");
         if (path_leaves_the_plane(trace)) {
             doc.figure(plan_path_plot(trace, units), "The load's path relative to the support, seen from above.");
         }
