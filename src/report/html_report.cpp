@@ -5,7 +5,7 @@
 #include <algorithm>
 #include <cmath>
 #include <ctime>
-#include <set>
+#include <optional>
 
 #include "plumb/html_document.hpp"
 #include "plumb/model.hpp"
@@ -82,11 +82,16 @@ std::string swing_plot(const LiftAssessment& a, const std::vector<Observation>& 
                      {quantity_series(a, trace, Quantity::hook_rope_angle, "hook rope angle", u),
                       quantity_series(a, trace, Quantity::load_angle, "load angle (rigging)", u)},
                      {}};
-    std::set<double> drawn;
-    for (const auto& [limit, words] : {std::pair{l.hook_rope_angle, "hook rope limit"}, std::pair{l.load_angle, "load angle limit"}}) {
-        if (!limit || !drawn.insert(*limit).second) continue;
-        angles.limits.push_back(limit_line(*limit, Dimension::angle, u, std::string(words) + " +"));
-        angles.limits.push_back(limit_line(-*limit, Dimension::angle, u, std::string(words)));
+    // Both angles at one limit: one pair of lines for both.
+    const bool shared = l.hook_rope_angle && l.load_angle && *l.hook_rope_angle == *l.load_angle;
+    const std::pair<std::optional<double>, const char*> lines[] = {
+        {l.hook_rope_angle, shared ? "angle limit" : "hook rope limit"},
+        {shared ? std::nullopt : l.load_angle, "load angle limit"}};
+    for (const auto& [limit, words] : lines) {
+        if (!limit) continue;
+        const Dimension d = Dimension::angle;
+        angles.limits.push_back({shown_value(*limit, d, u), std::string(words) + " +" + qty(*limit, d, u)});
+        angles.limits.push_back({shown_value(-*limit, d, u), std::string(words) + " " + qty(-*limit, d, u)});
     }
     PlotPanel speed{"support speed", unit_of(Dimension::speed, u),
                     {quantity_series(a, trace, Quantity::support_speed, "support speed", u)}, {}};
