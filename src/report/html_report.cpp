@@ -3,6 +3,7 @@
 #include "plumb/html_report.hpp"
 
 #include <algorithm>
+#include <cctype>
 #include <cmath>
 #include <ctime>
 #include <optional>
@@ -188,13 +189,12 @@ std::string plan_path_plot(const std::vector<Observation>& trace, UnitSystem u) 
 
 // ---- Tables ---------------------------------------------------------------
 
+// The row's shading class from the verdict's word ("NOT CHECKED" -> "not-checked"),
+// so that every verdict the checks can give has its class.
 std::string verdict_mark(Verdict v) {
-    switch (v) {
-        case Verdict::pass: return "pass";
-        case Verdict::caution: return "caution";
-        case Verdict::fail: return "fail";
-    }
-    return "";
+    std::string mark = verdict_word(v);
+    for (char& c : mark) c = c == ' ' ? '-' : static_cast<char>(std::tolower(static_cast<unsigned char>(c)));
+    return mark;
 }
 
 std::string when(double t, const LiftPrediction& p) {
