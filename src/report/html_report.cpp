@@ -289,7 +289,10 @@ ReportTable limits_table(const LiftAssessment& a, UnitSystem u) {
     t.columns = {{"limit"}, {"value", ColumnAlign::right}, {"in the job file"}};
     for (const LimitRow& row : limit_rows()) {
         const std::optional<double>& value = job.limits.*(row.member);
-        if (value) t.add_row({row.words, qty(*value, row.dimension, u), where_given(job, "limits")});
+        // The row's own line where the file's key has the row's name, else the section's lines.
+        const std::string key = std::string("limits.") + row.key;
+        if (value) t.add_row({row.words, qty(*value, row.dimension, u),
+                              job.key_locations.count(key) ? source_of(job, key) : where_given(job, "limits")});
         else t.add_row({row.words, "none given", "NOT CHECKED"}, "not-checked");
     }
     t.add_row({"CAUTION above this share of a limit", percent(job.limits.caution_fraction),
