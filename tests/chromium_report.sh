@@ -1,19 +1,22 @@
 #!/usr/bin/env bash
-# Opens a sample lift-plan attachment in headless Chromium and checks what a
+# Opens a lift-plan attachment in headless Chromium and checks what a
 # reviewer would get: the page loads without errors or outside requests, prints
 # to a PDF of a sensible page count on A4 and on US Letter, and the rendered
 # DOM holds the verdict, the checks table and every plot. Also leaves a PNG
 # screenshot beside the PDFs for a person to look at.
 #
-# usage: chromium_report.sh SAMPLE_PROGRAM OUTPUT_DIR
+# usage: chromium_report.sh OUTPUT_DIR MIN_PAGES MAX_PAGES PROGRAM [ARGUMENTS...]
+# The program is run as PROGRAM ARGUMENTS... HTML PAPER (PAPER: a4 or letter):
+# it writes the report to HTML and prints the number of plots it holds.
 # Exit 0 pass, 1 fail, 77 skipped (no Chromium: ctest reports SKIPPED, not passed).
 set -uo pipefail
 
-sample=$1
-out=$2
+out=$1
+min_pages=$2  # title, verdict and checks; plots on a page of their own; cautions and sign-off
+max_pages=$3  # more would mean plots or tables cut across pages or blown up
+shift 3
+sample=("$@")
 chromium=${PLUMB_CHROMIUM:-/usr/bin/chromium}
-min_pages=3   # title, verdict and checks; plots on a page of their own; cautions and sign-off
-max_pages=6   # more would mean plots or tables cut across pages or blown up
 
 if [[ ! -x $chromium ]]; then
     echo "SKIPPED: no Chromium at $chromium (install Debian's chromium package or set PLUMB_CHROMIUM);" \
@@ -62,7 +65,7 @@ check_clean_load() {
 
 for paper in a4 letter; do
     html="$out/report-$paper.html"
-    plots=$("$sample" "$html" "$paper") || fail "the sample program failed"
+    plots=$("${sample[@]}" "$html" "$paper") || fail "the program writing the report failed"
     url="file://$html"
 
     # 1. The DOM as Chromium built it.

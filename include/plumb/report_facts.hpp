@@ -40,6 +40,15 @@ std::vector<std::string> limits_not_given(const Limits& l);
 // One sentence per member that goes slack, with what that means for the model.
 std::vector<std::string> slack_statements(const LiftPrediction& p);
 
+// The input digest: one fact per part of the job, each value with its unit
+// (the summary's "Input" and the report's inputs table).
+struct InputFact {
+    std::string label;    // e.g. "Hoist"
+    std::string text;     // e.g. "rope length 7.5 m; 4 parts of line; ..."
+    std::string section;  // the job file's section it comes from, e.g. "hoist"
+};
+std::vector<InputFact> input_facts(const LiftAssessment& a, UnitSystem u);
+
 std::string verdict_explanation(const LiftAssessment& a);
 
 std::string mode_shape_words(double load_per_hook_angle);

@@ -15,6 +15,7 @@
 
 #include "plumb/assessment.hpp"
 #include "plumb/errors.hpp"
+#include "plumb/html_report.hpp"
 #include "plumb/job_file.hpp"
 #include "plumb/output_files.hpp"
 #include "plumb/report.hpp"
@@ -29,8 +30,10 @@ struct Options {
     std::string job_path;
     std::string json_path;  // "-": standard output
     std::string csv_path;
+    std::string report_path;
     bool json_given = false;  // given at all, even as ""
     bool csv_given = false;
+    bool report_given = false;
     plumb::UnitSystem units = plumb::UnitSystem::si;
 };
 
@@ -66,7 +69,9 @@ bool is_standard_output(const std::string& path) { return path == "-"; }
 // must be something plumb may replace (checked again when writing).
 void check_output_paths(const Options& options) {
     const std::tuple<const char*, const std::string*, bool> outputs[] = {
-        {"--json", &options.json_path, options.json_given}, {"--csv", &options.csv_path, options.csv_given}};
+        {"--json", &options.json_path, options.json_given},
+        {"--csv", &options.csv_path, options.csv_given},
+        {"--report", &options.report_path, options.report_given}};
     for (const auto& [option, path, given] : outputs) {
         if (given && path->empty()) {
             throw plumb::UsageError(std::string(option) + " needs a file name (or '-' for standard output)");
@@ -78,19 +83,27 @@ void check_output_paths(const Options& options) {
                                     "': it would be overwritten");
         }
     }
-    if (is_standard_output(options.json_path) && is_standard_output(options.csv_path)) {
-        throw plumb::UsageError("--json and --csv cannot both write to standard output ('-')");
-    }
-    if (!options.json_path.empty() && !options.csv_path.empty() &&
-        same_file(options.json_path, options.csv_path)) {
-        throw plumb::UsageError("--json and --csv name the same file '" + options.json_path + "'");
+    for (std::size_t i = 0; i < std::size(outputs); ++i) {
+        for (std::size_t j = i + 1; j < std::size(outputs); ++j) {
+            const auto& [option_i, path_i, given_i] = outputs[i];
+            const auto& [option_j, path_j, given_j] = outputs[j];
+            if (path_i->empty() || path_j->empty()) continue;
+            if (is_standard_output(*path_i) && is_standard_output(*path_j)) {
+                throw plumb::UsageError(std::string(option_i) + " and " + option_j +
+                                        " cannot both write to standard output ('-')");
+            }
+            if (!is_standard_output(*path_i) && same_file(*path_i, *path_j)) {
+                throw plumb::UsageError(std::string(option_i) + " and " + option_j + " name the same file '" +
+                                        *path_i + "'");
+            }
+        }
     }
 }
 
 int run_check(const Options& options) {
     check_output_paths(options);
     const plumb::Job job = plumb::load_job_file(options.job_path);
-    const plumb::LiftAssessment assessment = plumb::assess_lift(job, !options.csv_path.empty());
+    const plumb::LiftAssessment assessment = plumb::assess_lift(job, true);  // the summary draws the time series
 
     // Everything is formatted before anything is written, and the files are
     // written all or none, so a failure leaves no partial output behind.
@@ -104,11 +117,17 @@ int run_check(const Options& options) {
     };
     add(options.json_path, options.json_path.empty() ? "" : plumb::format_json(assessment, options.units));
     add(options.csv_path, options.csv_path.empty() ? "" : plumb::format_csv(assessment, options.units));
+    if (!options.report_path.empty()) {
+        add(options.report_path,
+            plumb::format_html_report(assessment, plumb::trace_for_plots(assessment),
+                                      plumb::report_provenance(job, PLUMB_VERSION), options.units));
+    }
     plumb::write_files_atomically(files);
 
     // With an output on standard output, the summary goes to standard error so
     // that a pipe receives the JSON or CSV alone.
-    const bool piped = is_standard_output(options.json_path) || is_standard_output(options.csv_path);
+    const bool piped = is_standard_output(options.json_path) || is_standard_output(options.csv_path) ||
+                       is_standard_output(options.report_path);
     std::ostream& summary_stream = piped ? std::cerr : std::cout;
     summary_stream << summary;
     for (const auto& [path, content] : files) summary_stream << "Wrote " << path << "\n";
@@ -159,6 +178,11 @@ int run(int argc, char** argv) {
         "--csv", options.csv_path,
         "Also write the time series (one row per output step) as CSV to FILE ('-': to standard output)");
     csv->option_text("FILE");
+    CLI::Option* report = check->add_option(
+        "--report", options.report_path,
+        "Also write the lift-plan attachment as one self-contained HTML file (print it to PDF from a browser) "
+        "to FILE ('-': to standard output)");
+    report->option_text("FILE");
     add_units_option(*check, options);
 
     CLI::App* modes = app.add_subcommand(
@@ -185,6 +209,7 @@ int run(int argc, char** argv) {
 
     options.json_given = json->count() > 0;
     options.csv_given = csv->count() > 0;
+    options.report_given = report->count() > 0;
     if (check->parsed()) return run_check(options);
     return run_modes(options);
 }

@@ -10,6 +10,7 @@
 namespace plumb {
 
 using text::percent;
+using text::qty;
 using text::seconds;
 
 const std::vector<std::string>& lift_cautions() {
@@ -125,5 +126,67 @@ std::string mode_shape_words(double load_per_hook_angle) {
 }
 
 double frequency_hz(const SwingMode& m) { return m.angular_frequency / (2.0 * std::numbers::pi); }
+
+namespace {
+
+std::string load_text(double newtons, UnitSystem u) {
+    // A rated load is a force; planners also read it as a mass at standard gravity.
+    // In US units lbf and lb have the same number there, so the mass is not repeated.
+    if (u == UnitSystem::us_customary) return qty(newtons, Dimension::load, u);
+    return qty(newtons, Dimension::load, u) + " (" +
+           qty(newtons / standard_gravity, Dimension::mass, u) + " at standard gravity)";
+}
+
+}  // namespace
+
+std::vector<InputFact> input_facts(const LiftAssessment& a, UnitSystem u) {
+    const Job& job = a.job;
+    const MotionDigest m = digest_motion(job.motion);
+    std::vector<InputFact> out;
+    std::string motion;
+    if (m.from_history) {
+        motion = "speed history of " + std::to_string(m.count) + " rows";
+        if (!job.motion.speed_history_file.empty()) motion += " from " + job.motion.speed_history_file;
+    } else {
+        motion = std::to_string(m.count) + (m.count == 1 ? " move" : " moves");
+    }
+    motion += "; total travel " + qty(m.total_travel, Dimension::length, u) + ", end position " +
+              qty(m.net_travel, Dimension::length, u) + "; peak speed " +
+              qty(m.peak_speed, Dimension::speed, u) + "; peak acceleration " +
+              qty(m.peak_acceleration, Dimension::acceleration, u) + "; support at rest for good from t = " +
+              seconds(a.prediction.end_of_motion);
+    out.push_back({"Motion", motion, "motion"});
+
+    std::string hoist = "rope length " + qty(job.hoist.rope_length, Dimension::length, u) + "; " +
+                        std::to_string(job.hoist.parts_of_line) + " parts of line; rated load " +
+                        load_text(job.hoist.rated_load, u);
+    if (job.hoist.rope_wll) hoist += "; rope WLL per line " + qty(*job.hoist.rope_wll, Dimension::force, u);
+    if (job.hoist.rope_minimum_breaking_load) {
+        hoist += "; rope minimum breaking load per line " +
+                 qty(*job.hoist.rope_minimum_breaking_load, Dimension::force, u);
+    }
+    out.push_back({"Hoist", hoist, "hoist"});
+    out.push_back({"Hook block", "mass " + qty(job.hook_block.mass, Dimension::mass, u), "hook_block"});
+
+    std::string rigging = "length hook to load CG " + qty(job.rigging.length, Dimension::length, u) +
+                          "; " + std::to_string(job.rigging.legs) +
+                          (job.rigging.legs == 1 ? " leg" : " legs") + " at " +
+                          qty(job.rigging.leg_angle_from_horizontal, Dimension::angle, u) +
+                          " from horizontal, " + std::to_string(job.rigging.legs_bearing) +
+                          " taken as bearing";
+    if (job.rigging.leg_wll) rigging += "; leg WLL " + qty(*job.rigging.leg_wll, Dimension::force, u);
+    out.push_back({"Rigging", rigging, "rigging"});
+
+    std::string load = "mass " + qty(job.load.mass, Dimension::mass, u) + "; radius of gyration " +
+                       qty(job.load.radius_of_gyration, Dimension::length, u);
+    if (job.load.radius_of_gyration == 0) load += " (point mass)";
+    if (job.load.initial_angle != 0 || job.load.initial_rate != 0) {
+        load += "; starts swung " + qty(job.load.initial_angle, Dimension::angle, u) + " at " +
+                qty(job.load.initial_rate, Dimension::angular_rate, u);
+    }
+    out.push_back({"Load", load, "load"});
+    out.push_back({"Gravity", qty(job.environment.gravity, Dimension::acceleration, u), "environment"});
+    return out;
+}
 
 }  // namespace plumb
