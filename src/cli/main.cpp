@@ -13,6 +13,7 @@
 
 #include <CLI/CLI.hpp>
 
+#include "advise_command.hpp"
 #include "plumb/assessment.hpp"
 #include "plumb/errors.hpp"
 #include "plumb/job_file.hpp"
@@ -166,6 +167,9 @@ int run(int argc, char** argv) {
     add_job_argument(*modes, options);
     add_units_option(*modes, options);
 
+    plumb_cli::AdviseOptions advise_options;
+    CLI::App* advise = plumb_cli::add_advise_command(app, advise_options);
+
     try {
         app.parse(argc, argv);
     } catch (const CLI::Success& e) {  // --help, --help-all, --version
@@ -174,8 +178,8 @@ int run(int argc, char** argv) {
         // A mistyped command reads better as what it is than as "a subcommand is required".
         if (argc > 1 && argv[1][0] != '-') {
             const std::string word = argv[1];
-            if (word != "check" && word != "modes") {
-                print_error("unknown command '" + word + "'; the commands are 'check' and 'modes' (see 'plumb --help')");
+            if (word != "check" && word != "modes" && word != "advise") {
+                print_error("unknown command '" + word + "'; the commands are 'check', 'modes' and 'advise' (see 'plumb --help')");
                 return static_cast<int>(plumb::ExitStatus::bad_input);
             }
         }
@@ -186,6 +190,7 @@ int run(int argc, char** argv) {
     options.json_given = json->count() > 0;
     options.csv_given = csv->count() > 0;
     if (check->parsed()) return run_check(options);
+    if (advise->parsed()) return plumb_cli::run_advise(advise_options);
     return run_modes(options);
 }
 
