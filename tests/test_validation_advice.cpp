@@ -106,3 +106,18 @@ TEST_CASE("the worst emergency stop during a coast matches the closed form for a
     // And twice the swing the start alone leaves (the planned motion's peak before its stop).
     CHECK(stop.outcome.peak_offset == Approx(2 * 7.0 * 2 * a / g).epsilon(0.01));
 }
+
+// The same definition for the top speeds (common practice, no source): a
+// residual swing limit, which the coast's length between the two speed
+// changes decides.
+TEST_CASE("the largest passing top speed scale passes and 2 percent above it fails", "[advice]") {
+    Job job = near_single_pendulum(0.1, 0.3, 10.0);
+    job.limits.residual_swing = 0.05;  // m
+    const AccelerationAdvice advice = largest_top_speed_scale(job, 0.05, 3.0);  // below the triangular move at 3.33
+    REQUIRE(advice.search.any_passes);
+    REQUIRE_FALSE(advice.search.whole_range_passes);
+    CHECK(advice.search.verified);
+    const double s = advice.search.value;
+    CHECK(assess_lift(with_top_speed_scale(job, s), false).overall != Verdict::fail);
+    CHECK(assess_lift(with_top_speed_scale(job, 1.02 * s), false).overall == Verdict::fail);
+}

@@ -50,10 +50,15 @@ struct AccelerationAdvice {
     std::optional<MotionOutcome> at_value;  // the outcome at the scale found
 };
 
+// The job with every move's top speed multiplied by scale.
+Job with_top_speed_scale(const Job& job, double scale);
+
 // The largest common scale on the planned moves' accelerations and
 // decelerations in [lo, hi] for which every check passes (bisection,
 // verified at the value and 2 % above). Needs planned moves.
 AccelerationAdvice largest_acceleration_scale(const Job& job, double lo = 0.05, double hi = 4.0);
+// The same for a common scale on the top speeds (accelerations as planned).
+AccelerationAdvice largest_top_speed_scale(const Job& job, double lo = 0.05, double hi = 4.0);
 
 // The candidates: the planned motion, whole-period S-curves (1..max_periods
 // slow periods per speed change), and the planned motion shaped by ZV, ZVD and

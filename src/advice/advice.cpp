@@ -78,16 +78,34 @@ Job with_acceleration_scale(const Job& job, double scale) {
     return scaled;
 }
 
-AccelerationAdvice largest_acceleration_scale(const Job& job, double lo, double hi) {
-    require_moves(job, "the acceleration search");
+Job with_top_speed_scale(const Job& job, double scale) {
+    Job scaled = job;
+    for (Move& m : scaled.motion.moves) m.top_speed *= scale;
+    return scaled;
+}
+
+namespace {
+
+AccelerationAdvice largest_passing_scale(const Job& job, Job (*scaled_job)(const Job&, double), double lo, double hi) {
+    require_moves(job, "the search for the largest passing drive settings");
     auto outcome_at = [&](double s) {
-        const Job scaled = with_acceleration_scale(job, s);
+        const Job scaled = scaled_job(job, s);
         return assess_motion(scaled, SupportMotion::from_spec(scaled.motion), "scaled");
     };
     AccelerationAdvice advice;
     advice.search = largest_passing([&](double s) { return outcome_at(s).passes(); }, lo, hi);
     if (advice.search.any_passes) advice.at_value = outcome_at(advice.search.value);
     return advice;
+}
+
+}  // namespace
+
+AccelerationAdvice largest_acceleration_scale(const Job& job, double lo, double hi) {
+    return largest_passing_scale(job, with_acceleration_scale, lo, hi);
+}
+
+AccelerationAdvice largest_top_speed_scale(const Job& job, double lo, double hi) {
+    return largest_passing_scale(job, with_top_speed_scale, lo, hi);
 }
 
 std::vector<MotionOutcome> motion_options(const Job& job, int max_periods) {

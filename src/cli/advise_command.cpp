@@ -58,21 +58,25 @@ std::string speed_history_csv(const SupportMotion& motion, const std::string& la
     return out.str();
 }
 
-std::string scale_text(const Job& job) {
-    if (job.motion.moves.empty()) return "  Not searched: the motion is a speed history, not planned moves.\n";
-    const AccelerationAdvice a = largest_acceleration_scale(job);
+// What one scale means for each move, e.g. "move 1: 0.143 / 0.143 m/s^2".
+std::string scaled_acceleration(const Move& m, double s) {
+    return fixed(s * m.acceleration, 3) + " / " + fixed(s * m.deceleration, 3) + " m/s^2";
+}
+std::string scaled_top_speed(const Move& m, double s) { return fixed(s * m.top_speed, 3) + " m/s"; }
+
+std::string scale_text(const Job& job, const AccelerationAdvice& a, const char* what,
+                       std::string (*per_move)(const Move&, double)) {
     std::ostringstream out;
     const LargestPassing& s = a.search;
-    if (!s.any_passes) return "  Even 5 % of the planned accelerations fails a check: the problem is not the drive.\n";
+    if (!s.any_passes) return std::string("  Even 5 % of the planned ") + what + " fails a check: the problem is not the drive.\n";
     if (s.whole_range_passes) {
-        out << "  Every check passes up to 4 times the planned accelerations (the end of the search).\n";
+        out << "  Every check passes up to 4 times the planned " << what << " (the end of the search)"
+            << " or it does not matter for this motion.\n";
     } else {
-        out << "  Largest common scale on acceleration and deceleration: " << fixed(s.value, 3) << " ("
+        out << "  Largest common scale on the " << what << ": " << fixed(s.value, 3) << " ("
             << fixed(100 * s.value, 1) << " % of the planned values";
         for (std::size_t i = 0; i < job.motion.moves.size(); ++i) {
-            const Move& m = job.motion.moves[i];
-            out << (i == 0 ? "; " : ", ") << "move " << i + 1 << ": " << fixed(s.value * m.acceleration, 3) << " / "
-                << fixed(s.value * m.deceleration, 3) << " m/s^2";
+            out << (i == 0 ? "; " : ", ") << "move " << i + 1 << ": " << per_move(job.motion.moves[i], s.value);
         }
         out << ")\n";
         if (a.at_value) {
@@ -86,6 +90,12 @@ std::string scale_text(const Job& job) {
     if (!s.note.empty()) out << "  Note: " << s.note << "\n";
     out << "  (" << s.evaluations << " full simulations)\n";
     return out.str();
+}
+
+std::string drive_limits_text(const Job& job) {
+    if (job.motion.moves.empty()) return "  Not searched: the motion is a speed history, not planned moves.\n";
+    return scale_text(job, largest_acceleration_scale(job), "accelerations and decelerations", scaled_acceleration) +
+           scale_text(job, largest_top_speed_scale(job), "top speeds", scaled_top_speed);
 }
 
 std::string stop_text(const Job& job) {
@@ -167,7 +177,7 @@ int run_advise(const AdviseOptions& options) {
     const std::optional<std::size_t> chosen = fastest_passing(options_found);
 
     std::string out = "plumb advise: " + job.title + "\n";
-    out += "\nLargest passing acceleration (bisection over full simulations)\n" + scale_text(job);
+    out += "\nLargest passing drive settings (bisection over full simulations)\n" + drive_limits_text(job);
     out += "\nMotion options (* = fastest that passes; all checked by full simulation)\n";
     out += options_table(options_found, chosen);
     if (chosen) out += "  Fastest passing motion: " + options_found[*chosen].label + "\n";
