@@ -32,11 +32,14 @@ struct SweepCaseResult {
     std::size_t index = 0;            // in the full grid, the last field fastest
     std::vector<std::string> values;  // varied values as text
     std::string overall;              // PASS / CAUTION / FAIL, INPUT ERROR, NUMERICAL ERROR
-    std::vector<double> peaks;        // one per quantity with a peak, SI
+    std::vector<double> peaks;        // one per quantity with a peak (sweep_peak_keys()), SI
     std::vector<std::string> check_verdicts;
     std::vector<double> check_utilisations;
     std::string error;                // for the two error kinds
 };
+
+// The keys of the quantities whose peaks a case keeps, in order.
+std::vector<std::string> sweep_peak_keys();
 
 struct SweepResult {
     std::vector<std::string> check_names;
@@ -50,6 +53,14 @@ struct SweepResult {
 // (may be empty) is called from the calling thread with cases done so far.
 SweepResult run_sweep(const std::string& job_path, const std::vector<VariedField>& fields, SweepShard shard,
                       int threads, const std::function<void(std::size_t done, std::size_t total)>& progress);
+
+// The general runner under sweeps and scatter: case indices[k] is the job
+// file with keys set to values_of(indices[k]) (job-file text), results in
+// the order of indices whatever the thread count.
+SweepResult run_job_cases(const std::string& job_path, const std::vector<std::string>& keys,
+                          const std::vector<std::size_t>& indices,
+                          const std::function<std::vector<std::string>(std::size_t)>& values_of, int threads,
+                          const std::function<void(std::size_t, std::size_t)>& progress);
 
 // The CSV: a header of comments with the cautions, then one row per case.
 // with the cautions and the model's assumptions as comment lines.

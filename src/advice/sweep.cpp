@@ -91,18 +91,17 @@ std::vector<const QuantitySpec*> peak_quantities() {
     return list;
 }
 
-SweepCaseResult run_case(const std::string& job_text, const std::string& job_path, const std::string& folder,
-                         const std::vector<VariedField>& fields, std::size_t index,
-                         SweepResult& shared, std::mutex& names_mutex) {
+}  // namespace
+
+SweepCaseResult run_job_case(const std::string& job_text, const std::string& job_path, const std::string& folder,
+                             const std::vector<std::string>& keys, std::vector<std::string> values,
+                             std::size_t index, SweepResult& shared, std::mutex& names_mutex) {
     std::vector<std::string>& check_names = shared.check_names;
     SweepCaseResult r;
     r.index = index;
-    const std::vector<int> position = grid_position(index, fields);
+    r.values = std::move(values);
     YAML::Node root = YAML::Load(job_text);
-    for (std::size_t f = 0; f < fields.size(); ++f) {
-        r.values.push_back(fields[f].text(position[f]));
-        node_at(root, fields[f].key) = r.values.back();
-    }
+    for (std::size_t f = 0; f < keys.size(); ++f) node_at(root, keys[f]) = r.values[f];
     YAML::Emitter out;
     out << root;
     try {
@@ -129,6 +128,8 @@ SweepCaseResult run_case(const std::string& job_text, const std::string& job_pat
     return r;
 }
 
+namespace {
+
 std::string csv_field(const std::string& text) {
     if (text.find_first_of(",\"\n") == std::string::npos) return text;
     std::string quoted = "\"";
@@ -137,6 +138,12 @@ std::string csv_field(const std::string& text) {
 }
 
 }  // namespace
+
+std::vector<std::string> sweep_peak_keys() {
+    std::vector<std::string> keys;
+    for (const QuantitySpec* q : peak_quantities()) keys.push_back(q->key);
+    return keys;
+}
 
 std::string VariedField::text(int i) const {
     const double v = count == 1 ? from : from + (to - from) * i / (count - 1);
@@ -176,41 +183,36 @@ SweepShard parse_shard(const std::string& spec) {
     return s;
 }
 
-SweepResult run_sweep(const std::string& job_path, const std::vector<VariedField>& fields, SweepShard shard,
-                      int threads, const std::function<void(std::size_t, std::size_t)>& progress) {
+SweepResult run_job_cases(const std::string& job_path, const std::vector<std::string>& keys,
+                          const std::vector<std::size_t>& indices,
+                          const std::function<std::vector<std::string>(std::size_t)>& values_of, int threads,
+                          const std::function<void(std::size_t, std::size_t)>& progress) {
     const std::string job_text = input::read_input_file(job_path, 1 << 20, "job file");
-    const std::string folder = std::filesystem::path(job_path).parent_path().string();
+    const std::string parent = std::filesystem::path(job_path).parent_path().string();
+    const std::string folder = parent.empty() ? "." : parent;
     SweepResult result;
-    result.total_cases = 1;
-    for (const VariedField& f : fields) {
-        result.total_cases *= static_cast<std::size_t>(f.count);
-        if (result.total_cases > 10'000'000) throw UsageError("--vary: more than 10,000,000 cases");
-    }
-    // Shard I of N takes every N-th case: shards of similar cost.
-    std::vector<std::size_t> mine;
-    for (std::size_t i = static_cast<std::size_t>(shard.index - 1); i < result.total_cases; i += shard.count)
-        mine.push_back(i);
-    // The first case fixes the check names (the same for every case of one job).
     std::mutex names_mutex;
-    result.cases.resize(mine.size());
+    result.cases.resize(indices.size());
     std::atomic<std::size_t> next{0}, done{0};
+    auto one = [&](std::size_t k) {
+        result.cases[k] = run_job_case(job_text, job_path, folder, keys, values_of(indices[k]), indices[k], result,
+                                       names_mutex);
+    };
     std::vector<std::exception_ptr> failures(static_cast<std::size_t>(std::max(1, threads)));
     auto worker = [&](std::size_t id) {
         try {
-            for (std::size_t k = next++; k < mine.size(); k = next++) {
-                result.cases[k] = run_case(job_text, job_path, folder.empty() ? "." : folder, fields, mine[k],
-                                           result, names_mutex);
+            for (std::size_t k = next++; k < indices.size(); k = next++) {
+                one(k);
                 ++done;
             }
         } catch (...) {
             failures[id] = std::current_exception();
-            next = mine.size();
+            next = indices.size();
         }
     };
-    // Run the first case alone so that the check names are known before any other case reads them.
-    if (!mine.empty()) {
-        result.cases[0] = run_case(job_text, job_path, folder.empty() ? "." : folder, fields, mine[0],
-                                   result, names_mutex);
+    // The first case alone, so that the check names are known before any other case reads them.
+    if (!indices.empty()) {
+        one(0);
         next = 1;
         done = 1;
     }
@@ -221,7 +223,7 @@ SweepResult run_sweep(const std::string& job_path, const std::vector<VariedField
     if (progress) {
         watcher = std::thread([&] {
             while (!finished) {
-                progress(done, mine.size());
+                progress(done, indices.size());
                 std::this_thread::sleep_for(std::chrono::milliseconds(200));
             }
         });
@@ -232,6 +234,29 @@ SweepResult run_sweep(const std::string& job_path, const std::vector<VariedField
     if (watcher.joinable()) watcher.join();
     for (const std::exception_ptr& f : failures)
         if (f) std::rethrow_exception(f);
+    return result;
+}
+
+SweepResult run_sweep(const std::string& job_path, const std::vector<VariedField>& fields, SweepShard shard,
+                      int threads, const std::function<void(std::size_t, std::size_t)>& progress) {
+    std::size_t total = 1;
+    for (const VariedField& f : fields) {
+        total *= static_cast<std::size_t>(f.count);
+        if (total > 10'000'000) throw UsageError("--vary: more than 10,000,000 cases");
+    }
+    // Shard I of N takes every N-th case: shards of similar cost.
+    std::vector<std::size_t> mine;
+    for (std::size_t i = static_cast<std::size_t>(shard.index - 1); i < total; i += shard.count) mine.push_back(i);
+    std::vector<std::string> keys;
+    for (const VariedField& f : fields) keys.push_back(f.key);
+    auto values_of = [&](std::size_t index) {
+        const std::vector<int> position = grid_position(index, fields);
+        std::vector<std::string> values;
+        for (std::size_t f = 0; f < fields.size(); ++f) values.push_back(fields[f].text(position[f]));
+        return values;
+    };
+    SweepResult result = run_job_cases(job_path, keys, mine, values_of, threads, progress);
+    result.total_cases = total;
     return result;
 }
 
