@@ -173,6 +173,7 @@ int run(int argc, char** argv) {
     plumb_cli::SweepOptions sweep_options;
     CLI::App* sweep = plumb_cli::add_sweep_command(app, sweep_options);
     CLI::App* sweep_merge = plumb_cli::add_sweep_merge_command(app, sweep_options);
+    CLI::App* scatter = plumb_cli::add_scatter_command(app, sweep_options);
 
     try {
         app.parse(argc, argv);
@@ -183,9 +184,9 @@ int run(int argc, char** argv) {
         if (argc > 1 && argv[1][0] != '-') {
             const std::string word = argv[1];
             if (word != "check" && word != "modes" && word != "advise" && word != "sweep" &&
-                word != "sweep-merge") {
+                word != "sweep-merge" && word != "scatter") {
                 print_error("unknown command '" + word +
-                            "'; the commands are 'check', 'modes', 'advise', 'sweep' and 'sweep-merge' (see 'plumb --help')");
+                            "'; the commands are 'check', 'modes', 'advise', 'sweep', 'sweep-merge' and 'scatter' (see 'plumb --help')");
                 return static_cast<int>(plumb::ExitStatus::bad_input);
             }
         }
@@ -199,6 +200,7 @@ int run(int argc, char** argv) {
     if (advise->parsed()) return plumb_cli::run_advise(advise_options);
     if (sweep->parsed()) return plumb_cli::run_sweep_command(sweep_options);
     if (sweep_merge->parsed()) return plumb_cli::run_sweep_merge(sweep_options);
+    if (scatter->parsed()) return plumb_cli::run_scatter_command(sweep_options);
     return run_modes(options);
 }
 

@@ -11,6 +11,7 @@
 
 #include "plumb/errors.hpp"
 #include "plumb/output_files.hpp"
+#include "plumb/scatter.hpp"
 #include "plumb/sweep.hpp"
 #include "input/input_file.hpp"
 
@@ -91,6 +92,28 @@ int run_sweep_merge(const SweepOptions& options) {
     for (const std::string& f : options.shard_files) texts.push_back(plumb::input::read_input_file(f, std::size_t{1} << 32, "shard CSV"));
     emit(options.output_path, plumb::merge_sweep_csvs(texts));
     return 0;
+}
+
+CLI::App* add_scatter_command(CLI::App& app, SweepOptions& options) {
+    CLI::App* scatter = app.add_subcommand(
+        "scatter", "Run the job over samples of the uncertain inputs in its scatter section: percentiles and failure probabilities");
+    scatter->add_option("JOB", options.job_path, "The lift job file (YAML) with a scatter section")
+        ->required()
+        ->check(CLI::ExistingFile);
+    scatter->add_option("--samples", options.samples, "Number of Latin hypercube samples (default 1000)");
+    scatter->add_option("--seed", options.seed, "Seed of the random numbers (default 1): the same seed, the same result");
+    scatter->add_option("--threads", options.threads, "Threads (default: every core)")->check(CLI::Range(0, 1024));
+    return scatter;
+}
+
+int run_scatter_command(const SweepOptions& options) {
+    const int threads = options.threads > 0 ? options.threads
+                                            : static_cast<int>(std::max(1u, std::thread::hardware_concurrency()));
+    const plumb::ScatterResult r = plumb::run_scatter(options.job_path, options.samples, options.seed, threads);
+    std::cout << plumb::format_scatter(r) << std::flush;
+    for (const plumb::CheckFailure& f : r.checks)
+        if (f.failures > 0) return static_cast<int>(plumb::ExitStatus::check_failed);
+    return static_cast<int>(plumb::ExitStatus::all_checks_pass);
 }
 
 }  // namespace plumb_cli

@@ -47,7 +47,8 @@ constexpr double inf = std::numeric_limits<double>::infinity();
 using KeyList = std::vector<std::string_view>;
 
 const KeyList top_keys{"job", "motion", "hoist", "hook_block", "rigging",
-                       "load", "environment", "limits", "analysis"};
+                       "load", "environment", "limits", "analysis",
+                       "scatter"};  // uncertain inputs: read by plumb scatter only (docs/scatter.md)
 const KeyList job_keys{"title", "reference"};
 const KeyList motion_keys{"moves", "speed_history", "emergency_deceleration"};
 const KeyList move_keys{"distance", "top_speed", "acceleration", "deceleration", "jerk", "pause_before"};
