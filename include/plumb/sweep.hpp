@@ -38,6 +38,9 @@ struct SweepCaseResult {
     std::string error;                // for the two error kinds
 };
 
+// A number as job-file text: the shortest form to 12 significant digits.
+std::string job_number_text(double v);
+
 // The keys of the quantities whose peaks a case keeps, in order.
 std::vector<std::string> sweep_peak_keys();
 

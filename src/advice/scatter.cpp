@@ -18,12 +18,6 @@
 namespace plumb {
 namespace {
 
-std::string number_text(double v) {
-    char buffer[64];
-    std::snprintf(buffer, sizeof buffer, "%.12g", v);
-    return buffer;
-}
-
 // A number with its unit, e.g. "14 t"; the unit must match the others of the input.
 double read_number(const YAML::Node& spec, const char* name, const std::string& key, std::string& unit) {
     if (!spec[name]) throw UsageError("scatter." + key + ": missing '" + std::string(name) + "'");
@@ -92,7 +86,7 @@ ScatterResult run_scatter(const std::string& job_path, std::size_t samples, std:
         std::vector<std::string> values;
         for (std::size_t d = 0; d < r.inputs.size(); ++d) {
             const UncertainInput& in = r.inputs[d];
-            const std::string v = number_text(in.distribution.quantile(u[i][d]));
+            const std::string v = job_number_text(in.distribution.quantile(u[i][d]));
             values.push_back(in.unit.empty() ? v : v + " " + in.unit);
         }
         return values;

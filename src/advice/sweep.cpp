@@ -26,12 +26,6 @@
 namespace plumb {
 namespace {
 
-std::string shortest_text(double v) {
-    char buffer[64];
-    std::snprintf(buffer, sizeof buffer, "%.12g", v);
-    return buffer;
-}
-
 // Split "12.5 m/s^2" or "12.5m/s^2" into the number and the unit text.
 std::pair<double, std::string> number_and_unit(const std::string& text, const std::string& spec) {
     const char* begin = text.c_str();
@@ -139,6 +133,12 @@ std::string csv_field(const std::string& text) {
 
 }  // namespace
 
+std::string job_number_text(double v) {
+    char buffer[64];
+    std::snprintf(buffer, sizeof buffer, "%.12g", v);
+    return buffer;
+}
+
 std::vector<std::string> sweep_peak_keys() {
     std::vector<std::string> keys;
     for (const QuantitySpec* q : peak_quantities()) keys.push_back(q->key);
@@ -147,7 +147,7 @@ std::vector<std::string> sweep_peak_keys() {
 
 std::string VariedField::text(int i) const {
     const double v = count == 1 ? from : from + (to - from) * i / (count - 1);
-    return unit.empty() ? shortest_text(v) : shortest_text(v) + " " + unit;
+    return unit.empty() ? job_number_text(v) : job_number_text(v) + " " + unit;
 }
 
 VariedField parse_varied_field(const std::string& spec) {
