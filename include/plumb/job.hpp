@@ -35,6 +35,9 @@ struct SupportMotionSpec {
     std::vector<Move> moves;                 // either moves ...
     std::vector<SpeedSample> speed_history;  // ... or a speed history (exactly one is non-empty)
     std::string speed_history_file;          // where the history came from, for the report
+    // m/s^2, > 0: the drive's emergency (quick-stop) deceleration; only advice
+    // reads it (the worst-case stop). None: not known, no stop is searched.
+    std::optional<double> emergency_deceleration;
 };
 
 struct Hoist {

@@ -13,6 +13,8 @@
 
 #include <CLI/CLI.hpp>
 
+#include "advise_command.hpp"
+#include "sweep_command.hpp"
 #include "plumb/assessment.hpp"
 #include "plumb/errors.hpp"
 #include "plumb/html_report.hpp"
@@ -190,6 +192,13 @@ int run(int argc, char** argv) {
     add_job_argument(*modes, options);
     add_units_option(*modes, options);
 
+    plumb_cli::AdviseOptions advise_options;
+    CLI::App* advise = plumb_cli::add_advise_command(app, advise_options);
+    plumb_cli::SweepOptions sweep_options;
+    CLI::App* sweep = plumb_cli::add_sweep_command(app, sweep_options);
+    CLI::App* sweep_merge = plumb_cli::add_sweep_merge_command(app, sweep_options);
+    CLI::App* scatter = plumb_cli::add_scatter_command(app, sweep_options);
+
     try {
         app.parse(argc, argv);
     } catch (const CLI::Success& e) {  // --help, --help-all, --version
@@ -198,8 +207,10 @@ int run(int argc, char** argv) {
         // A mistyped command reads better as what it is than as "a subcommand is required".
         if (argc > 1 && argv[1][0] != '-') {
             const std::string word = argv[1];
-            if (word != "check" && word != "modes") {
-                print_error("unknown command '" + word + "'; the commands are 'check' and 'modes' (see 'plumb --help')");
+            if (word != "check" && word != "modes" && word != "advise" && word != "sweep" &&
+                word != "sweep-merge" && word != "scatter") {
+                print_error("unknown command '" + word +
+                            "'; the commands are 'check', 'modes', 'advise', 'sweep', 'sweep-merge' and 'scatter' (see 'plumb --help')");
                 return static_cast<int>(plumb::ExitStatus::bad_input);
             }
         }
@@ -211,6 +222,10 @@ int run(int argc, char** argv) {
     options.csv_given = csv->count() > 0;
     options.report_given = report->count() > 0;
     if (check->parsed()) return run_check(options);
+    if (advise->parsed()) return plumb_cli::run_advise(advise_options);
+    if (sweep->parsed()) return plumb_cli::run_sweep_command(sweep_options);
+    if (sweep_merge->parsed()) return plumb_cli::run_sweep_merge(sweep_options);
+    if (scatter->parsed()) return plumb_cli::run_scatter_command(sweep_options);
     return run_modes(options);
 }
 

@@ -47,9 +47,10 @@ constexpr double inf = std::numeric_limits<double>::infinity();
 using KeyList = std::vector<std::string_view>;
 
 const KeyList top_keys{"job", "motion", "hoist", "hook_block", "rigging",
-                       "load", "environment", "limits", "analysis"};
+                       "load", "environment", "limits", "analysis",
+                       "scatter"};  // uncertain inputs: read by plumb scatter only (docs/scatter.md)
 const KeyList job_keys{"title", "reference"};
-const KeyList motion_keys{"moves", "speed_history"};
+const KeyList motion_keys{"moves", "speed_history", "emergency_deceleration"};
 const KeyList move_keys{"distance", "top_speed", "acceleration", "deceleration", "jerk", "pause_before"};
 const KeyList hoist_keys{"rope_length", "parts_of_line", "rated_load", "rope_wll",
                          "rope_minimum_breaking_load"};
@@ -373,6 +374,12 @@ void read_motion(const Section& s, Job& job) {
         fail(s.ctx(), s.mark(), s.path(),
              "no support motion: give moves (a list of travel moves) or speed_history (a CSV file)");
 
+    if (const auto stop = s.optional_quantity("emergency_deceleration", Dimension::acceleration)) {
+        s.check_positive("emergency_deceleration", *stop, Dimension::acceleration);
+        s.check_plausible("emergency_deceleration", *stop, Dimension::acceleration, min_acceleration,
+                          max_acceleration, "emergency deceleration");
+        job.motion.emergency_deceleration = *stop;
+    }
     if (history != nullptr) {
         read_speed_history(s, *history, job.motion);
         return;

@@ -1,0 +1,76 @@
+// Sweeps: one job file run over a full grid of varied numeric fields, every
+// case simulated and checked, results in a fixed order whatever the thread
+// count, shardable for a batch scheduler's job array. See docs/sweep.md.
+#pragma once
+
+#include <cstddef>
+#include <functional>
+#include <string>
+#include <vector>
+
+namespace plumb {
+
+// One varied field: KEY=FROM:TO:COUNT, the key path as in docs/job-file.md
+// (motion.moves[1].acceleration), FROM and TO numbers with the same unit
+// text, which the job-file parser reads exactly as if written in the file.
+struct VariedField {
+    std::string key;
+    double from = 0, to = 0;
+    std::string unit;  // e.g. "m/s^2"; empty for a plain number
+    int count = 1;
+    // The i-th value as job-file text ("0.125 m/s^2").
+    std::string text(int i) const;
+};
+VariedField parse_varied_field(const std::string& spec);
+
+struct SweepShard {
+    int index = 1, count = 1;  // shard I of N, 1-based
+};
+SweepShard parse_shard(const std::string& spec);
+
+struct SweepCaseResult {
+    std::size_t index = 0;            // in the full grid, the last field fastest
+    std::vector<std::string> values;  // varied values as text
+    std::string overall;              // PASS / CAUTION / FAIL, INPUT ERROR, NUMERICAL ERROR
+    std::vector<double> peaks;        // one per quantity with a peak (sweep_peak_keys()), SI
+    std::vector<std::string> check_verdicts;
+    std::vector<double> check_utilisations;
+    std::string error;                // for the two error kinds
+};
+
+// A number as job-file text: the shortest form to 12 significant digits.
+std::string job_number_text(double v);
+
+// The keys of the quantities whose peaks a case keeps, in order.
+std::vector<std::string> sweep_peak_keys();
+
+struct SweepResult {
+    std::vector<std::string> check_names;
+    std::vector<std::string> assumptions;  // the model's, as every output states them
+    std::vector<SweepCaseResult> cases;  // in index order
+    std::size_t total_cases = 0;         // the full grid
+};
+
+// Run the grid's cases that belong to shard on `threads` threads (each case
+// a full assess_lift of the job text with the varied values set). progress
+// (may be empty) is called from the calling thread with cases done so far.
+SweepResult run_sweep(const std::string& job_path, const std::vector<VariedField>& fields, SweepShard shard,
+                      int threads, const std::function<void(std::size_t done, std::size_t total)>& progress);
+
+// The general runner under sweeps and scatter: case indices[k] is the job
+// file with keys set to values_of(indices[k]) (job-file text), results in
+// the order of indices whatever the thread count.
+SweepResult run_job_cases(const std::string& job_path, const std::vector<std::string>& keys,
+                          const std::vector<std::size_t>& indices,
+                          const std::function<std::vector<std::string>(std::size_t)>& values_of, int threads,
+                          const std::function<void(std::size_t, std::size_t)>& progress);
+
+// The CSV: a header of comments with the cautions, then one row per case.
+// with the cautions and the model's assumptions as comment lines.
+std::string format_sweep_csv(const std::vector<VariedField>& fields, const SweepResult& result);
+// Shard CSVs of one sweep merged into the CSV one run would write.
+std::string merge_sweep_csvs(const std::vector<std::string>& shard_texts);
+// For two varied fields: a map of verdicts (rows the first field, columns the second).
+std::string format_sweep_map(const std::vector<VariedField>& fields, const SweepResult& result);
+
+}  // namespace plumb
