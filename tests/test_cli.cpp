@@ -70,6 +70,7 @@ motion:
       acceleration: 0.3 m/s^2
 hoist:
   rope_length: 10 m
+  parts_of_line: 1
   rated_load: 10 t
 hook_block:
   mass: 200 kg

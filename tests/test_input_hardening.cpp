@@ -22,9 +22,8 @@ using plumb::parse_job;
 namespace {
 
 // Line numbers matter: line 2 is the title, line 3 the reference.
-const std::string base_job = R"(job:
-  title: "Tank section transfer"
-  reference: "HARD-1"
+const std::string base_job = R"(job: {reference: "HARD-1",
+  title: "Tank section transfer"}
 motion:
   moves:
     - distance: 8 m
@@ -32,6 +31,7 @@ motion:
       acceleration: 0.2 m/s^2
 hoist:
   rope_length: 9 m
+  parts_of_line: 2
   rated_load: 20 t
 hook_block:
   mass: 300 kg

@@ -88,10 +88,27 @@ std::string load_text(double newtons, UnitSystem u) {
            qty(newtons / standard_gravity, Dimension::mass, u) + " at standard gravity)";
 }
 
+// How the job file's numbers were read: the command line's --units never
+// changes that, only the units shown below.
+std::string job_units_text(JobUnits declared) {
+    switch (declared) {
+        case JobUnits::si: return "declared 'units: si' (bare numbers read as m, kg, N, s, m/s, deg)";
+        case JobUnits::us_customary: return "declared 'units: us' (bare numbers read as ft, lb, lbf, s, ft/min, deg)";
+        case JobUnits::none: break;
+    }
+    return "every quantity given with its unit";
+}
+
+// "1 part of line", "4 parts of line".
+std::string parts_of_line_text(int parts) {
+    return std::to_string(parts) + (parts == 1 ? " part of line" : " parts of line");
+}
+
 std::string input_digest(const LiftAssessment& a, UnitSystem u) {
     const Job& job = a.job;
     const MotionDigest m = digest_motion(job.motion);
     std::string out = heading("Input");
+    out += field("Job file units", job_units_text(job.declared_units));
     std::string motion;
     if (m.from_history) {
         motion = "speed history of " + std::to_string(m.count) + " rows";
@@ -107,7 +124,7 @@ std::string input_digest(const LiftAssessment& a, UnitSystem u) {
     out += field("Motion", motion);
 
     std::string hoist = "rope length " + qty(job.hoist.rope_length, Dimension::length, u) + "; " +
-                        std::to_string(job.hoist.parts_of_line) + " parts of line; rated load " +
+                        parts_of_line_text(job.hoist.parts_of_line) + "; rated load " +
                         load_text(job.hoist.rated_load, u);
     if (job.hoist.rope_wll) hoist += "; rope WLL per line " + qty(*job.hoist.rope_wll, Dimension::force, u);
     if (job.hoist.rope_minimum_breaking_load) {
@@ -156,8 +173,8 @@ std::string peaks_section(const LiftAssessment& a, UnitSystem u) {
     std::string out = heading("Peaks over the whole simulation (t = 0 to " + seconds(p.end_time) + ")");
     out += t.render();
     out += wrap("Angles and offsets are magnitudes (either direction). Static: everything hanging "
-                "at rest. Line pull = total / " + std::to_string(p.parts_of_line) +
-                " parts of line. Rigging resultant: the whole force between hook and rigging. "
+                "at rest. Line pull = total / " + parts_of_line_text(p.parts_of_line) +
+                ". Rigging resultant: the whole force between hook and rigging. "
                 "Sling leg tension = rigging resultant x " + num(p.sling_leg_factor) +
                 " (leg rule).", "  ", "  ");
     out += past_validity_note(p);
