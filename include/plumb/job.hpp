@@ -36,6 +36,9 @@ struct SupportMotionSpec {
     std::vector<Move> moves;                 // either moves ...
     std::vector<SpeedSample> speed_history;  // ... or a speed history (exactly one is non-empty)
     std::string speed_history_file;          // where the history came from, for the report
+    // Neither: the support stays at rest throughout (`fixed_support: true`), a
+    // free swing from the load's initial angle and rate.
+    bool fixed_support = false;
 };
 
 struct Hoist {

@@ -49,7 +49,7 @@ using KeyList = std::vector<std::string_view>;
 const KeyList top_keys{"job", "motion", "hoist", "hook_block", "rigging",
                        "load", "environment", "limits", "analysis", "units"};
 const KeyList job_keys{"title", "reference"};
-const KeyList motion_keys{"moves", "speed_history"};
+const KeyList motion_keys{"moves", "speed_history", "fixed_support"};
 const KeyList move_keys{"distance", "top_speed", "acceleration", "deceleration", "jerk", "pause_before"};
 const KeyList hoist_keys{"rope_length", "parts_of_line", "rated_load", "rope_wll",
                          "rope_minimum_breaking_load"};
@@ -402,11 +402,21 @@ void read_speed_history(const Section& s, const Entry& e, SupportMotionSpec& mot
 void read_motion(const Section& s, Job& job) {
     const Entry* moves = s.find("moves");
     const Entry* history = s.find("speed_history");
+    if (const Entry* fixed = s.find("fixed_support")) {
+        if (moves != nullptr || history != nullptr)
+            s.fail_at_key(*fixed, "a fixed support has no moves and no speed history: give only one of them");
+        if (trim(s.text(*fixed)) != "true")
+            s.fail_at(*fixed, "expected 'true' (the support stays at rest: a free swing from the load's "
+                              "initial_angle and initial_rate), or leave the key out");
+        job.motion.fixed_support = true;
+        return;
+    }
     if (moves != nullptr && history != nullptr)
         s.fail_at_key(*history, "give either moves or speed_history, not both");
     if (moves == nullptr && history == nullptr)
         fail(s.ctx(), s.mark(), s.path(),
-             "no support motion: give moves (a list of travel moves) or speed_history (a CSV file)");
+             "no support motion: give moves (a list of travel moves), speed_history (a CSV file) or "
+             "fixed_support: true (no motion: a free swing)");
 
     if (history != nullptr) {
         read_speed_history(s, *history, job.motion);

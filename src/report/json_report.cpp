@@ -44,7 +44,7 @@ json job_json(const LiftAssessment& a, UnitSystem u) {
     const Job& job = a.job;
     const MotionDigest m = digest_motion(job.motion);
     json motion = {
-        {"kind", m.from_history ? "speed_history" : "moves"},
+        {"kind", job.motion.fixed_support ? "fixed_support" : m.from_history ? "speed_history" : "moves"},
         {m.from_history ? "speed_history_rows" : "moves", m.count},
         {"total_travel", quantity_json(m.total_travel, Dimension::length, u)},
         {"end_position", quantity_json(m.net_travel, Dimension::length, u)},

@@ -67,7 +67,7 @@ std::string slack_statement(const LiftPrediction& p, const char* what, double t)
 
 MotionDigest digest_motion(const SupportMotionSpec& spec) {
     MotionDigest d;
-    d.from_history = spec.moves.empty();
+    d.from_history = spec.moves.empty() && !spec.fixed_support;
     if (d.from_history) {
         d.count = spec.speed_history.size();
         for (std::size_t i = 1; i < spec.speed_history.size(); ++i) {

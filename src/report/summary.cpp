@@ -110,7 +110,9 @@ std::string input_digest(const LiftAssessment& a, UnitSystem u) {
     std::string out = heading("Input");
     out += field("Job file units", job_units_text(job.declared_units));
     std::string motion;
-    if (m.from_history) {
+    if (job.motion.fixed_support) {
+        motion = "fixed support (no moves: a free swing from the initial condition)";
+    } else if (m.from_history) {
         motion = "speed history of " + std::to_string(m.count) + " rows";
         if (!job.motion.speed_history_file.empty()) motion += " from " + job.motion.speed_history_file;
     } else {
