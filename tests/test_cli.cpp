@@ -70,6 +70,7 @@ motion:
       acceleration: 0.3 m/s^2
 hoist:
   rope_length: 10 m
+  parts_of_line: 1
   rated_load: 10 t
 hook_block:
   mass: 200 kg
@@ -105,7 +106,7 @@ TEST_CASE("plumb --help exits 0 for the program and for each subcommand", "[cli]
     const RunResult modes = run_plumb("modes --help");
     CHECK(modes.status == 0);
     CHECK(contains(modes.out, "--units"));
-    CHECK_FALSE(contains(modes.out, "--json"));
+    CHECK(contains(modes.out, "--json"));  // plumb modes --json (was absent before it existed)
 }
 
 TEST_CASE("plumb --version exits 0 and names the program", "[cli]") {

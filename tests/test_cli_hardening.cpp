@@ -58,6 +58,7 @@ motion:
       acceleration: 0.3 m/s^2
 hoist:
   rope_length: 8 m
+  parts_of_line: 1
   rated_load: 10 t
 hook_block:
   mass: 150 kg

@@ -32,6 +32,7 @@ motion:
       acceleration: 0.2 m/s^2
 hoist:
   rope_length: 9 m
+  parts_of_line: 2
   rated_load: 20 t
 hook_block:
   mass: 300 kg
@@ -112,7 +113,7 @@ TEST_CASE("a job file with CRLF line ends is accepted", "[input][hardening]") {
 TEST_CASE("a byte-order mark before the job keeps the lines and columns of its errors", "[input][hardening]") {
     const std::string bad = with("  mass: 300 kg", "  mass: heavy");
     const std::string without = error_of(bad);
-    CHECK_THAT(without, Contains("job.yaml:13:9: hook_block.mass"));
+    CHECK_THAT(without, Contains("job.yaml:14:9: hook_block.mass"));
     CHECK(error_of("\xEF\xBB\xBF" + bad) == without);
     CHECK(error_of("\xEF\xBB\xBF" + base_job) == "(accepted)");
 }
@@ -226,7 +227,7 @@ TEST_CASE("a time series of more than a million rows is refused naming analysis.
         plumb::assess_lift(job, true);
         FAIL("accepted");
     } catch (const InputError& e) {
-        CHECK_THAT(e.what(), Contains("job.yaml:20:16: analysis.output_step") && Contains("rows"));
+        CHECK_THAT(e.what(), Contains("job.yaml:21:16: analysis.output_step") && Contains("rows"));
     }
     CHECK_NOTHROW(plumb::assess_lift(parse_job(with("  duration_after: 20 s", "  duration_after: 1 s"), "job.yaml"), true));
 }

@@ -83,9 +83,9 @@ motion:
     - distance: 8 m
       top_speed: 0.4 m/s
       acceleration: 0.2 m/s^2
-hoist:
-  rope_length: 10 m
-  rated_load: 50 kN
+hoist: {
+  rope_length: 10 m, parts_of_line: 1,
+  rated_load: 50 kN}
 hook_block:
   mass: 120 kg
 rigging:
@@ -230,8 +230,9 @@ TEST_CASE("a rated load given as a mass uses standard gravity, not the job's gra
     CHECK(job.hoist.rated_load == Approx(196133.0));
 }
 
-TEST_CASE("bare numbers in a job are SI", "[job_file]") {
-    const Job job = parse_job(minimal_with("rope_length: 10 m", "rope_length: 10"), "job.yaml");
+TEST_CASE("bare numbers in a job that declares units si are SI", "[job_file]") {
+    const Job job =
+        parse_job("units: si\n" + minimal_with("rope_length: 10 m", "rope_length: 10"), "job.yaml");
     CHECK(job.hoist.rope_length == 10);
 }
 
@@ -565,7 +566,7 @@ TEST_CASE("a negative radius of gyration is an input error", "[job_file]") {
 TEST_CASE("gravity outside (0, 30] m/s^2 is an input error", "[job_file]") {
     CHECK_THAT(error_of(full_with("gravity: 9.81 m/s^2", "gravity: 0")),
                Contains("environment.gravity: must be more than 0 m/s^2"));
-    CHECK_THAT(error_of(full_with("gravity: 9.81 m/s^2", "gravity: 32.2")),
+    CHECK_THAT(error_of(full_with("gravity: 9.81 m/s^2", "gravity: 32.2") + "units: si\n"),
                Contains("environment.gravity: must be at most 30 m/s^2, got 32.2 m/s^2"));
 }
 
@@ -621,7 +622,7 @@ TEST_CASE("analysis settings outside their ranges are input errors", "[job_file]
 // ---------------------------------------------------------------- implausible values
 
 TEST_CASE("an implausible rope length asks to check the units", "[job_file]") {
-    CHECK_THAT(error_of(full_with("rope_length: 14 m", "rope_length: 1400")),
+    CHECK_THAT(error_of(full_with("rope_length: 14 m", "rope_length: 1400") + "units: si\n"),
                Contains("job.yaml:16:16: hoist.rope_length: implausible rope length 1400 m (more than 500 m): "
                         "check the units; a number without a unit is taken as m"));
 }
@@ -636,7 +637,7 @@ TEST_CASE("an implausible rigging or leg length asks to check the units", "[job_
 }
 
 TEST_CASE("an implausible top speed asks to check the units", "[job_file]") {
-    CHECK_THAT(error_of(full_with("top_speed: 40 m/min", "top_speed: 40")),
+    CHECK_THAT(error_of(full_with("top_speed: 40 m/min", "top_speed: 40") + "units: si\n"),
                Contains("motion.moves[1].top_speed: implausible top speed 40 m/s (more than 10 m/s): check the "
                         "units; a number without a unit is taken as m/s"));
 }

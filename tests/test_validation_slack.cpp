@@ -57,7 +57,7 @@ TEST_CASE("a slack rigging is a FAIL that says the rigid model ends there", "[sl
     const std::string yaml = R"(
 job: {title: "whipped load"}
 motion: {speed_history: support_at_rest.csv}
-hoist: {rope_length: 4 m, rated_load: 10 t}
+hoist: {rope_length: 4 m, parts_of_line: 1, rated_load: 10 t}
 hook_block: {mass: 5 kg}
 rigging: {length: 1 m}
 load: {mass: 5 t, initial_angle: 60 deg, initial_rate: 2 rad/s}

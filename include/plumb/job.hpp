@@ -8,6 +8,7 @@
 #include <vector>
 
 #include "plumb/errors.hpp"
+#include "plumb/units.hpp"
 
 namespace plumb {
 
@@ -38,6 +39,9 @@ struct SupportMotionSpec {
     // m/s^2, > 0: the drive's emergency (quick-stop) deceleration; only advice
     // reads it (the worst-case stop). None: not known, no stop is searched.
     std::optional<double> emergency_deceleration;
+    // Neither: the support stays at rest throughout (`fixed_support: true`), a
+    // free swing from the load's initial angle and rate.
+    bool fixed_support = false;
 };
 
 struct Hoist {
@@ -58,6 +62,10 @@ struct Rigging {
     int legs_bearing = 1;          // legs taken to share the load (rigging practice, see docs)
     double leg_angle_from_horizontal = 0;  // rad, in (0, pi/2]; pi/2 for a single vertical leg
     std::optional<double> leg_wll;  // N, per leg
+    // As given, when the leg angle came from leg length and spread: kept to
+    // check them against length (a plausibility notice).
+    std::optional<double> leg_length;  // m
+    std::optional<double> spread;      // m, between opposite lifting points
 };
 
 struct Load {
@@ -101,6 +109,7 @@ struct Job {
     std::string title;
     std::string reference;
     std::string source_file;  // the job file, for the report
+    JobUnits declared_units = JobUnits::none;  // the file's `units:` (bare numbers read in it); none: every quantity carried its unit
     SupportMotionSpec motion;
     Hoist hoist;
     HookBlock hook_block;

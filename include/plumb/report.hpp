@@ -20,6 +20,8 @@ std::string format_summary(const LiftAssessment& a, UnitSystem units);
 // The modes, input and assumptions of a model (describe_lift_model()).
 std::string format_modes(const Job& job, const ModelDescription& model, UnitSystem units);
 std::string format_json(const LiftAssessment& a, UnitSystem units);
+// The same content as format_modes, as a JSON document (`plumb modes --json`).
+std::string format_modes_json(const Job& job, const ModelDescription& model, UnitSystem units);
 std::string format_csv(const LiftAssessment& a, UnitSystem units);
 
 }  // namespace plumb

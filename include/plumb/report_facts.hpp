@@ -49,6 +49,9 @@ struct InputFact {
 };
 std::vector<InputFact> input_facts(const LiftAssessment& a, UnitSystem u);
 
+// "1 part of line", "4 parts of line".
+std::string parts_of_line_text(int parts);
+
 std::string verdict_explanation(const LiftAssessment& a);
 
 std::string mode_shape_words(double load_per_hook_angle);

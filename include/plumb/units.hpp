@@ -41,6 +41,17 @@ inline constexpr double pound = 0.45359237;                     // kg
 inline constexpr double pound_force = pound * standard_gravity;  // N
 inline constexpr double degree = std::numbers::pi / 180.0;      // rad
 
+// The unit system a job file may declare once at its top (`units: si` or
+// `units: us`). Without it every quantity must carry its unit; with it a bare
+// number is read in the declared system (bare_number_unit). It never changes
+// the units of the outputs, which the command line chooses.
+enum class JobUnits { none, si, us_customary };
+
+// The unit a bare number is read in under a declared system: si: m, kg, N, s,
+// m/s, m/s^2, m/s^3, deg, deg/s; us: ft, lb, lbf, s, ft/min, ft/s^2, ft/s^3,
+// deg, deg/s. Empty for a ratio and for JobUnits::none.
+std::string_view bare_number_unit(Dimension d, JobUnits u);
+
 // Thrown by parse_quantity; the job-file parser adds the file, line and key.
 class UnitError : public std::runtime_error {
 public:
@@ -56,6 +67,9 @@ std::string accepted_units(Dimension d);
 
 // Parse "12.5 m", "3 t", "20 m/min", "5 deg", "90 %", or a bare number (taken
 // as SI: m, kg, N, s, rad, fraction). Throws UnitError naming what was expected.
+// Also reads the common spellings lbs, kips, feet, fpm, tonne, sh ton / short
+// ton (2000 lb) and long ton (2240 lb); refuses the ambiguous ton. The job-file
+// parser refuses bare numbers itself unless the file declares its units.
 double parse_quantity(std::string_view text, Dimension expected);
 
 // The same for a YAML scalar that was already a plain number.

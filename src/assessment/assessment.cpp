@@ -264,8 +264,64 @@ const char* verdict_word(Verdict v) {
 
 namespace {
 
+std::string percent_text(double fraction) {
+    std::ostringstream s;
+    s.precision(3);
+    s << fraction * 100 << " %";
+    return s.str();
+}
+
+std::string metres_text(double metres) {
+    std::ostringstream s;
+    s.precision(3);
+    s << metres << " m";
+    return s.str();
+}
+
+// Slips a planner makes that still give a runnable job: a load entered in the
+// wrong unit, a rope WLL entered for the whole reeving, rigging dimensions
+// that do not fit together. Warnings, not errors: each can be what was meant.
+void add_plausibility_notices(const Job& job, std::vector<std::string>& notices) {
+    if (job.load.mass < job.hook_block.mass) {
+        notices.push_back("the load is lighter than its hook block: check the units of load.mass and "
+                          "hook_block.mass");
+    }
+    const double load_share = job.load.mass * standard_gravity / job.hoist.rated_load;
+    if (load_share < 0.01) {
+        notices.push_back("the load is " + percent_text(load_share) +
+                          " of the rated load (under 1 %): check the units of load.mass and hoist.rated_load");
+    } else if (load_share > 1) {
+        notices.push_back("the load alone is " + percent_text(load_share) + " of the rated load (over 100 %)");
+    }
+    // A rope rated a little above its share is common (ropes come in steps);
+    // the slip to catch, a WLL for the whole reeving, is a factor of the parts.
+    const double per_line = job.hoist.rated_load / job.hoist.parts_of_line;
+    if (job.hoist.rope_wll && *job.hoist.rope_wll > 1.1 * per_line) {
+        notices.push_back("the rope WLL per line is more than 110 % of what the rated load over " +
+                          std::to_string(job.hoist.parts_of_line) +
+                          (job.hoist.parts_of_line == 1 ? " part" : " parts") +
+                          " of line allows: check that hoist.rope_wll is per line and parts_of_line is right");
+    }
+    if (job.rigging.leg_length && job.rigging.spread) {
+        // Legs from the hook reach down sqrt(leg^2 - (spread/2)^2) to the lifting
+        // points; the centre of gravity hangs below them, not above, and rarely
+        // by more than that height again.
+        const double half = *job.rigging.spread / 2;
+        const double sling_height = std::sqrt(*job.rigging.leg_length * *job.rigging.leg_length - half * half);
+        const double below = job.rigging.length - sling_height;
+        const double tolerance_above = std::max(0.02, 0.02 * sling_height);
+        const double tolerance_below = std::max(1.0, sling_height);
+        if (below < -tolerance_above || below > tolerance_below) {
+            notices.push_back("rigging.length " + metres_text(job.rigging.length) +
+                              " does not fit leg_length and spread, which put the lifting points " +
+                              metres_text(sling_height) + " below the hook: check the three values");
+        }
+    }
+}
+
 std::vector<std::string> input_notices(const Job& job, const LiftPrediction& p) {
     std::vector<std::string> notices;
+    add_plausibility_notices(job, notices);
     const double leg_angle = job.rigging.leg_angle_from_horizontal;
     if (job.rigging.legs > 1 && leg_angle < 30 * degree) {
         notices.push_back("sling legs at less than 30 deg from the horizontal: leg tensions rise steeply and "

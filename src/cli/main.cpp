@@ -1,6 +1,7 @@
 // The plumb command: `plumb check JOB` and `plumb modes JOB`.
 // Every failure is caught once, here, and becomes one "plumb: error:" line on
 // stderr and the exit status of errors.hpp.
+#include <cctype>
 #include <exception>
 #include <filesystem>
 #include <iostream>
@@ -36,16 +37,33 @@ struct Options {
     bool json_given = false;  // given at all, even as ""
     bool csv_given = false;
     bool report_given = false;
+    bool modes_json = false;  // plumb modes --json: the modes as JSON on standard output
     plumb::UnitSystem units = plumb::UnitSystem::si;
 };
+
+std::string to_lower(std::string s) {
+    for (char& c : s) c = static_cast<char>(std::tolower(static_cast<unsigned char>(c)));
+    return s;
+}
 
 void add_units_option(CLI::App& command, Options& options) {
     static const std::map<std::string, plumb::UnitSystem> names = {
         {"si", plumb::UnitSystem::si}, {"us", plumb::UnitSystem::us_customary}};
-    command.add_option("--units", options.units,
-                       "Units of the output: si (m, t, kN, m/s) or us (ft, lb, lbf, ft/min); "
-                       "angles are in degrees in both. Default: si")
-        ->transform(CLI::CheckedTransformer(names, CLI::ignore_case))
+    // The option only sets the units printed: the job file's numbers are read
+    // by the file's own units (docs/job-file.md), whatever this says.
+    command
+        .add_option_function<std::string>(
+            "--units",
+            [&options](const std::string& name) {
+                const auto found = names.find(to_lower(name));
+                if (found == names.end())
+                    throw plumb::UsageError("--units takes 'si' or 'us', got '" + name +
+                                            "' (the output units; a job file's own units are set in the file)");
+                options.units = found->second;
+            },
+            "Units of the OUTPUT only: si (m, t, kN, m/s) or us (ft, lb, lbf, ft/min); angles are in "
+            "degrees in both. Default: si. It does not change how the job file is read: that file "
+            "gives every quantity its unit or declares 'units: si|us' itself")
         ->option_text("si|us");
 }
 
@@ -145,7 +163,10 @@ int run_check(const Options& options) {
 
 int run_modes(const Options& options) {
     const plumb::Job job = plumb::load_job_file(options.job_path);
-    std::cout << plumb::format_modes(job, plumb::describe_lift_model(job), options.units) << std::flush;
+    const plumb::ModelDescription model = plumb::describe_lift_model(job);
+    std::cout << (options.modes_json ? plumb::format_modes_json(job, model, options.units)
+                                     : plumb::format_modes(job, model, options.units))
+              << std::flush;
     return 0;
 }
 
@@ -191,6 +212,10 @@ int run(int argc, char** argv) {
         "modes", "Print the two natural swing modes (periods, frequencies, shapes) of the job");
     add_job_argument(*modes, options);
     add_units_option(*modes, options);
+    modes->add_flag("--json", options.modes_json, "Print the modes as JSON on standard output instead of text");
+    // modes makes no checks: a check cannot fail, so exit status 1 never applies.
+    modes->footer("Exit status: 0 the modes were printed, 2 bad input or command line, "
+                  "3 numerical or internal failure.");
 
     plumb_cli::AdviseOptions advise_options;
     CLI::App* advise = plumb_cli::add_advise_command(app, advise_options);

@@ -47,10 +47,10 @@ constexpr double inf = std::numeric_limits<double>::infinity();
 using KeyList = std::vector<std::string_view>;
 
 const KeyList top_keys{"job", "motion", "hoist", "hook_block", "rigging",
-                       "load", "environment", "limits", "analysis",
+                       "load", "environment", "limits", "analysis", "units",
                        "scatter"};  // uncertain inputs: read by plumb scatter only (docs/scatter.md)
 const KeyList job_keys{"title", "reference"};
-const KeyList motion_keys{"moves", "speed_history", "emergency_deceleration"};
+const KeyList motion_keys{"moves", "speed_history", "fixed_support", "emergency_deceleration"};
 const KeyList move_keys{"distance", "top_speed", "acceleration", "deceleration", "jerk", "pause_before"};
 const KeyList hoist_keys{"rope_length", "parts_of_line", "rated_load", "rope_wll",
                          "rope_minimum_breaking_load"};
@@ -102,7 +102,30 @@ struct Context {
     std::string file;  // as shown in messages: printable
     fs::path base_folder;
     std::map<std::string, SourceLocation>* locations;  // of every key read, into Job::key_locations
+    JobUnits units = JobUnits::none;  // the file's `units:`, if it declares one
 };
+
+// A unit a planner would likely mean, for the example in the message about a bare number.
+std::string_view example_unit(Dimension d) {
+    switch (d) {
+        case Dimension::mass:
+        case Dimension::load: return "t";
+        case Dimension::force: return "kN";
+        case Dimension::speed: return "m/min";
+        case Dimension::angle: return "deg";
+        case Dimension::angular_rate: return "deg/s";
+        default: return si_unit(d);
+    }
+}
+
+// The message for a bare number in a file that declares no units: the key,
+// the units it takes and the line to write instead.
+std::string bare_number_problem(const std::string& key, const std::string& number, Dimension d) {
+    return "'" + number + "' has no unit, and this file declares no units: write " + std::string(dimension_name(d)) +
+           " with its unit (" + accepted_units(d) + "), for example '" + key + ": " + number + " " +
+           std::string(example_unit(d)) +
+           "', or declare the file's units once at the top ('units: si' or 'units: us', see docs/job-file.md)";
+}
 
 [[noreturn]] void fail(const Context& ctx, const YAML::Mark& mark, const std::string& key_path,
                        const std::string& problem) {
@@ -180,8 +203,10 @@ public:
         if (e.value.IsNull()) fail(ctx_, e.mark(), e.path, "no value given; " + expected_phrase(d));
         if (!e.value.IsScalar())
             fail(ctx_, e.mark(), e.path, expected_phrase(d) + ", got " + describe(e.value));
+        const std::string& raw = e.value.Scalar();
         try {
-            return parse_quantity(e.value.Scalar(), d);
+            if (d != Dimension::ratio && plain_number(trim(raw))) return bare_quantity(e, trim(raw), d);
+            return parse_quantity(raw, d);
         } catch (const UnitError& err) {
             fail(ctx_, e.mark(), e.path, err.what());
         }
@@ -190,6 +215,16 @@ public:
     std::optional<double> optional_quantity(std::string_view key, Dimension d) const {
         if (const Entry* e = find(key)) return quantity(*e, d);
         return std::nullopt;
+    }
+
+    // A number without a unit: read in the file's declared units; zero is zero
+    // in every unit; otherwise refused (a bare 3.6 meant as tonnes must not
+    // run as 3.6 kg).
+    double bare_quantity(const Entry& e, std::string_view number, Dimension d) const {
+        if (ctx_.units != JobUnits::none)
+            return parse_quantity(std::string(number) + " " + std::string(bare_number_unit(d, ctx_.units)), d);
+        if (const std::optional<double> v = plain_number(number); v && *v == 0) return 0.0;
+        fail(ctx_, e.mark(), e.path, bare_number_problem(e.key, std::string(number), d));
     }
 
     // A plain number without a unit (tolerances, dynamic factor).
@@ -269,8 +304,8 @@ public:
                               (v < low ? " (less than " + show(low, d) : " (more than " + show(high, d)) +
                               "): check the units";
         const Entry* e = find(key);
-        if (e != nullptr && e->value.IsScalar() && is_bare(e->value.Scalar()))
-            problem += "; a number without a unit is taken as " + std::string(si_unit(d));
+        if (e != nullptr && e->value.IsScalar() && plain_number(trim(e->value.Scalar())) && ctx_.units != JobUnits::none)
+            problem += "; a number without a unit is taken as " + std::string(bare_number_unit(d, ctx_.units));
         fail_at(key, problem);
     }
 
@@ -368,11 +403,21 @@ void read_speed_history(const Section& s, const Entry& e, SupportMotionSpec& mot
 void read_motion(const Section& s, Job& job) {
     const Entry* moves = s.find("moves");
     const Entry* history = s.find("speed_history");
+    if (const Entry* fixed = s.find("fixed_support")) {
+        if (moves != nullptr || history != nullptr)
+            s.fail_at_key(*fixed, "a fixed support has no moves and no speed history: give only one of them");
+        if (trim(s.text(*fixed)) != "true")
+            s.fail_at(*fixed, "expected 'true' (the support stays at rest: a free swing from the load's "
+                              "initial_angle and initial_rate), or leave the key out");
+        job.motion.fixed_support = true;
+        return;
+    }
     if (moves != nullptr && history != nullptr)
         s.fail_at_key(*history, "give either moves or speed_history, not both");
     if (moves == nullptr && history == nullptr)
         fail(s.ctx(), s.mark(), s.path(),
-             "no support motion: give moves (a list of travel moves) or speed_history (a CSV file)");
+             "no support motion: give moves (a list of travel moves), speed_history (a CSV file) or "
+             "fixed_support: true (no motion: a free swing)");
 
     if (const auto stop = s.optional_quantity("emergency_deceleration", Dimension::acceleration)) {
         s.check_positive("emergency_deceleration", *stop, Dimension::acceleration);
@@ -419,6 +464,9 @@ void read_hoist(const Section& s, Hoist& h) {
     s.check_plausible("rope_length", h.rope_length, Dimension::length, min_rope_length, max_rope_length,
                       "rope length");
 
+    // No default: a hoist reeved with 4 parts read as 1 would put four times
+    // the pull on the rope check.
+    s.require("parts_of_line");
     h.parts_of_line = s.integer("parts_of_line", 1, 64, 1);
 
     h.rated_load = s.quantity("rated_load", Dimension::load);
@@ -498,6 +546,8 @@ void read_rigging(const Section& s, Rigging& r) {
                                        " cannot reach lifting points " + show(w, Dimension::length) +
                                        " apart: leg_length must be more than half the spread");
         angle = leg_angle_from_geometry(l, w);
+        r.leg_length = l;
+        r.spread = w;
     }
 
     if (r.legs == 1) {
@@ -645,8 +695,19 @@ void read_analysis(const Section& s, AnalysisSettings& a) {
 
 // ---------------------------------------------------------------- whole job
 
-Job build_job(const Context& ctx, const YAML::Node& root) {
+JobUnits read_units(const Section& top, const Entry& e) {
+    const std::string name(trim(top.text(e)));
+    if (name == "si") return JobUnits::si;
+    if (name == "us") return JobUnits::us_customary;
+    top.fail_at(e, "expected 'si' (bare numbers in m, kg, N, s, m/s, deg) or 'us' (bare numbers in ft, lb, "
+                   "lbf, s, ft/min, deg), got '" + name + "'");
+}
+
+// ctx is a copy: the file's `units:` is set on it before any quantity is read,
+// and every Section below refers to it.
+Job build_job(Context ctx, const YAML::Node& root) {
     const Section top(ctx, root, "", root.Mark(), top_keys);
+    if (const Entry* e = top.find("units")) ctx.units = read_units(top, *e);
     auto required = [&](std::string_view key, const KeyList& keys) {
         const Entry* e = top.find(key);
         if (e == nullptr)
@@ -656,6 +717,7 @@ Job build_job(const Context& ctx, const YAML::Node& root) {
 
     Job job;
     job.source_file = ctx.file;  // printable, so that JSON and the terminal can show it
+    job.declared_units = ctx.units;
     read_job(required("job", job_keys), job);
     read_motion(required("motion", motion_keys), job);
     read_hoist(required("hoist", hoist_keys), job.hoist);

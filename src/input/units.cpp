@@ -17,6 +17,7 @@ namespace {
 // Defining values: foot, inch, pound, pound_force and degree in units.hpp;
 //   kip: 1000 lbf
 //   tonne: 1 t = 1000 kg (SI brochure)
+//   short ton: 2000 lb; long ton: 2240 lb (NIST Handbook 44, Appendix C)
 
 // value_in_si = value * multiply / divide. Decimal sub-multiples divide, so that
 // "12 mm" gives the double nearest 0.012 rather than 12 * (nearest double to 0.001).
@@ -33,16 +34,25 @@ constexpr std::array unit_table{
     UnitDef{"cm", Dimension::length, 1, 100},
     UnitDef{"km", Dimension::length, 1000, 1},
     UnitDef{"ft", Dimension::length, foot, 1},
+    UnitDef{"feet", Dimension::length, foot, 1},
+    UnitDef{"foot", Dimension::length, foot, 1},
     UnitDef{"in", Dimension::length, inch, 1},
 
     UnitDef{"kg", Dimension::mass, 1, 1},
     UnitDef{"t", Dimension::mass, 1000, 1},
+    UnitDef{"tonne", Dimension::mass, 1000, 1},
+    UnitDef{"tonnes", Dimension::mass, 1000, 1},
     UnitDef{"lb", Dimension::mass, pound, 1},
+    UnitDef{"lbs", Dimension::mass, pound, 1},
+    UnitDef{"sh ton", Dimension::mass, 2000 * pound, 1},
+    UnitDef{"short ton", Dimension::mass, 2000 * pound, 1},
+    UnitDef{"long ton", Dimension::mass, 2240 * pound, 1},
 
     UnitDef{"N", Dimension::force, 1, 1},
     UnitDef{"kN", Dimension::force, 1000, 1},
     UnitDef{"lbf", Dimension::force, pound_force, 1},
     UnitDef{"kip", Dimension::force, 1000 * pound_force, 1},
+    UnitDef{"kips", Dimension::force, 1000 * pound_force, 1},
 
     UnitDef{"s", Dimension::time, 1, 1},
     UnitDef{"min", Dimension::time, 60, 1},
@@ -52,6 +62,7 @@ constexpr std::array unit_table{
     UnitDef{"ft/s", Dimension::speed, foot, 1},
     UnitDef{"m/min", Dimension::speed, 1, 60},
     UnitDef{"ft/min", Dimension::speed, foot, 60},
+    UnitDef{"fpm", Dimension::speed, foot, 60},
 
     UnitDef{"m/s^2", Dimension::acceleration, 1, 1},
     UnitDef{"m/s2", Dimension::acceleration, 1, 1},
@@ -111,6 +122,13 @@ std::size_t number_prefix(std::string_view s) {
     return i;
 }
 
+// "ton" alone is a short ton in the US, a long ton in the UK and a tonne to
+// many: a factor of 1.12 apart, too much to guess.
+bool is_ambiguous_ton(std::string_view symbol) {
+    const std::string s = lower(symbol);
+    return s == "ton" || s == "tons";
+}
+
 const UnitDef* find_unit(std::string_view symbol) {
     for (const UnitDef& u : unit_table)
         if (u.symbol == symbol) return &u;
@@ -160,6 +178,25 @@ std::string_view si_unit(Dimension d) {
         case Dimension::jerk: return "m/s^3";
         case Dimension::angle: return "rad";
         case Dimension::angular_rate: return "rad/s";
+        case Dimension::ratio: return "";
+    }
+    return "";
+}
+
+std::string_view bare_number_unit(Dimension d, JobUnits u) {
+    if (u == JobUnits::none || d == Dimension::ratio) return "";
+    const bool us = u == JobUnits::us_customary;
+    switch (d) {
+        case Dimension::length: return us ? "ft" : "m";
+        case Dimension::mass: return us ? "lb" : "kg";
+        case Dimension::force:
+        case Dimension::load: return us ? "lbf" : "N";
+        case Dimension::time: return "s";
+        case Dimension::speed: return us ? "ft/min" : "m/s";
+        case Dimension::acceleration: return us ? "ft/s^2" : "m/s^2";
+        case Dimension::jerk: return us ? "ft/s^3" : "m/s^3";
+        case Dimension::angle: return "deg";
+        case Dimension::angular_rate: return "deg/s";
         case Dimension::ratio: return "";
     }
     return "";
@@ -233,6 +270,10 @@ double parse_quantity(std::string_view raw, Dimension expected) {
     const std::string_view symbol = trim(text.substr(n));
     if (symbol.empty()) return value;  // a bare number is SI
 
+    if (is_ambiguous_ton(symbol))
+        fail(expected, text,
+             "'" + std::string(symbol) + "' is ambiguous: write 't' or 'tonne' (1000 kg), "
+             "'sh ton' or 'short ton' (2000 lb), or 'long ton' (2240 lb)");
     const UnitDef* unit = find_unit(symbol);
     if (unit == nullptr) {
         const UnitDef* near = find_unit_ignoring_case(symbol);

@@ -44,7 +44,7 @@ json job_json(const LiftAssessment& a, UnitSystem u) {
     const Job& job = a.job;
     const MotionDigest m = digest_motion(job.motion);
     json motion = {
-        {"kind", m.from_history ? "speed_history" : "moves"},
+        {"kind", job.motion.fixed_support ? "fixed_support" : m.from_history ? "speed_history" : "moves"},
         {m.from_history ? "speed_history_rows" : "moves", m.count},
         {"total_travel", quantity_json(m.total_travel, Dimension::length, u)},
         {"end_position", quantity_json(m.net_travel, Dimension::length, u)},
@@ -185,6 +185,33 @@ std::string format_json(const LiftAssessment& a, UnitSystem u) {
           {"rhs_evaluations", st.rhs_evaluations},
           {"restarts", st.restarts},
           {"trace_rows", s.trace.size()}}},
+    };
+    return doc.dump(2) + "\n";
+}
+
+std::string format_modes_json(const Job& job, const ModelDescription& model, UnitSystem u) {
+    const json input = {
+        {"rope_length", quantity_json(job.hoist.rope_length, Dimension::length, u)},
+        {"hook_block_mass", quantity_json(job.hook_block.mass, Dimension::mass, u)},
+        {"rigging_length", quantity_json(job.rigging.length, Dimension::length, u)},
+        {"load_mass", quantity_json(job.load.mass, Dimension::mass, u)},
+        {"radius_of_gyration", quantity_json(job.load.radius_of_gyration, Dimension::length, u)},
+        {"gravity", quantity_json(job.environment.gravity, Dimension::acceleration, u)},
+    };
+    const json doc = {
+        {"program", "plumb"},
+        {"output", "swing modes"},
+        {"unit_system", unit_system_key(u)},
+        {"units", units_json(u)},
+        {"title", job.title},
+        {"reference", job.reference},
+        {"source_file", job.source_file},
+        {"model", model.name},
+        {"input", input},
+        {"modes", model.modes ? modes_json(*model.modes) : json(nullptr)},
+        {"note", "periods are for small swings about the vertical (linearized equations); no checks are made"},
+        {"cautions", lift_cautions()},
+        {"assumptions", model.assumptions},
     };
     return doc.dump(2) + "\n";
 }

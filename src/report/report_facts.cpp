@@ -68,7 +68,7 @@ std::string slack_statement(const LiftPrediction& p, const char* what, double t)
 
 MotionDigest digest_motion(const SupportMotionSpec& spec) {
     MotionDigest d;
-    d.from_history = spec.moves.empty();
+    d.from_history = spec.moves.empty() && !spec.fixed_support;
     if (d.from_history) {
         d.count = spec.speed_history.size();
         for (std::size_t i = 1; i < spec.speed_history.size(); ++i) {
@@ -139,12 +139,34 @@ std::string load_text(double newtons, UnitSystem u) {
 
 }  // namespace
 
+namespace {
+
+// How the job file's numbers were read: the command line's --units never
+// changes that, only the units shown.
+std::string job_units_text(JobUnits declared) {
+    switch (declared) {
+        case JobUnits::si: return "declared 'units: si' (bare numbers read as m, kg, N, s, m/s, deg)";
+        case JobUnits::us_customary: return "declared 'units: us' (bare numbers read as ft, lb, lbf, s, ft/min, deg)";
+        case JobUnits::none: break;
+    }
+    return "every quantity given with its unit";
+}
+
+}  // namespace
+
+std::string parts_of_line_text(int parts) {
+    return std::to_string(parts) + (parts == 1 ? " part of line" : " parts of line");
+}
+
 std::vector<InputFact> input_facts(const LiftAssessment& a, UnitSystem u) {
     const Job& job = a.job;
     const MotionDigest m = digest_motion(job.motion);
     std::vector<InputFact> out;
+    out.push_back({"Job file units", job_units_text(job.declared_units), "units"});
     std::string motion;
-    if (m.from_history) {
+    if (job.motion.fixed_support) {
+        motion = "fixed support (no moves: a free swing from the initial condition)";
+    } else if (m.from_history) {
         motion = "speed history of " + std::to_string(m.count) + " rows";
         if (!job.motion.speed_history_file.empty()) motion += " from " + job.motion.speed_history_file;
     } else {
@@ -158,7 +180,7 @@ std::vector<InputFact> input_facts(const LiftAssessment& a, UnitSystem u) {
     out.push_back({"Motion", motion, "motion"});
 
     std::string hoist = "rope length " + qty(job.hoist.rope_length, Dimension::length, u) + "; " +
-                        std::to_string(job.hoist.parts_of_line) + " parts of line; rated load " +
+                        parts_of_line_text(job.hoist.parts_of_line) + "; rated load " +
                         load_text(job.hoist.rated_load, u);
     if (job.hoist.rope_wll) hoist += "; rope WLL per line " + qty(*job.hoist.rope_wll, Dimension::force, u);
     if (job.hoist.rope_minimum_breaking_load) {

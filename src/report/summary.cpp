@@ -123,8 +123,8 @@ std::string peaks_section(const LiftAssessment& a, UnitSystem u) {
     std::string out = heading("Peaks over the whole simulation (t = 0 to " + seconds(p.end_time) + ")");
     out += t.render();
     out += wrap("Angles and offsets are magnitudes (either direction). Static: everything hanging "
-                "at rest. Line pull = total / " + std::to_string(p.parts_of_line) +
-                " parts of line. Rigging resultant: the whole force between hook and rigging. "
+                "at rest. Line pull = total / " + parts_of_line_text(p.parts_of_line) +
+                ". Rigging resultant: the whole force between hook and rigging. "
                 "Sling leg tension = rigging resultant x " + num(p.sling_leg_factor) +
                 " (leg rule).", "  ", "  ");
     out += past_validity_note(p);

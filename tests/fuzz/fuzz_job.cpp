@@ -58,7 +58,13 @@ public:
         // How wild the values get: at 0 every value is a plausible one in a
         // right unit; the higher, the more extreme, random or broken values.
         chaos_ = data_.ConsumeIntegral<std::uint8_t>() / 4;
-        std::string y = "job:\n  title: " + text("Fuzzed lift") + "\n";
+        std::string y;
+        switch (data_.ConsumeIntegralInRange(0, 2)) {  // the file's declared units, if any
+            case 1: y += "units: si\n"; break;
+            case 2: y += "units: us\n"; break;
+            default: break;
+        }
+        y += "job:\n  title: " + text("Fuzzed lift") + "\n";
         if (data_.ConsumeBool()) y += "  reference: " + text("FZ-1") + "\n";
         y += "motion:\n";
         if (data_.ConsumeIntegralInRange(0, 3) == 0) {
