@@ -168,7 +168,11 @@ TEST_CASE("the dynamic factor is named the swing dynamic factor with what it lea
     for (const std::string& s : a.prediction.model.assumptions) assumptions += s + " ";
     CHECK(contains(assumptions, "swing dynamic factor"));
     CHECK(contains(assumptions, "lift-off"));
-    CHECK(contains(format_summary(a, UnitSystem::si), "swing dynamic factor, hoist rope"));
+    const std::string summary = squeeze(format_summary(a, UnitSystem::si));
+    CHECK(contains(summary, "swing dynamic factor, hoist rope"));
+    CHECK(contains(summary, "Swing dynamic factors: swing during travel only"));
+    CHECK(contains(json::parse(format_json(a, UnitSystem::si))["peaks"]["dynamic_factor_scope"].get<std::string>(),
+                   "lift-off"));
 }
 
 TEST_CASE("a failing residual swing reports its first exceedance after the last move ends", "[verdicts]") {

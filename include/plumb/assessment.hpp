@@ -59,6 +59,9 @@ struct CheckResult {
     std::string note;                   // for NOT CHECKED: why the check could not be made
 };
 
+// What the swing dynamic factor covers and leaves out, beside every value of it.
+extern const char* const swing_dynamic_factor_scope;
+
 // How the rated load is compared: with the gross hook load (hook block,
 // rigging and load) or, for a net rating, with the load below the hook.
 const char* rating_basis_words(RatingBasis b);

@@ -236,10 +236,10 @@ LiftPrediction predict_lift(const Job& job, const SwingModel& model, const Model
     return p;
 }
 
-namespace {
-
-const char* const dynamic_factor_leaves_out =
+const char* const swing_dynamic_factor_scope =
     "swing during travel only: hoisting, lift-off, brake and impact effects are not included";
+
+namespace {
 
 std::string sheave_words(const Job& job) {
     std::ostringstream s;
@@ -337,7 +337,7 @@ std::vector<CheckResult> run_checks(const Job& job, const LiftPrediction& p, con
         checks.push_back(not_checked("sling_leg_tension", leg_words, Dimension::force, "no leg WLL given (rigging.leg_wll)"));
     }
     const std::string factor_words =
-        std::string("swing dynamic factor: peak over static hoist rope tension (") + dynamic_factor_leaves_out + ")";
+        std::string("swing dynamic factor: peak over static hoist rope tension (") + swing_dynamic_factor_scope + ")";
     if (l.dynamic_factor) {
         CheckResult c = peak_check(Quantity::dynamic_factor, "swing_dynamic_factor", factor_words,
                                    *l.dynamic_factor, first_at(dynamic_factor_watch(job, p.model.static_loads)));

@@ -135,6 +135,7 @@ std::string format_json(const LiftAssessment& a, UnitSystem u) {
         }
     }
     peaks["sling_leg_factor"] = quantity_json(p.sling_leg_factor, Dimension::ratio, u);
+    peaks["dynamic_factor_scope"] = swing_dynamic_factor_scope;
 
     json residual = {{"from", s.residual_from}, {"to", p.end_time}};
     for (const QuantitySpec& q : quantity_table()) {

@@ -137,10 +137,12 @@ std::string rated_load_statement(const LiftAssessment& a, UnitSystem u) {
 
 std::string verdict_explanation(const LiftAssessment& a) {
     const std::size_t missing = checks_not_made(a.checks);
-    const std::string not_made =
-        missing == 0 ? ""
-                     : " " + std::to_string(missing) + (missing == 1 ? " check was" : " checks were") +
-                           " NOT CHECKED (no rating or limit given): the verdict covers only the checks made.";
+    std::string not_made;
+    if (missing > 0) {
+        not_made = std::string(" ") + std::to_string(missing);
+        not_made += missing == 1 ? " check was" : " checks were";
+        not_made += " NOT CHECKED (no rating or limit given): the verdict covers only the checks made.";
+    }
     switch (a.overall) {
         case Verdict::not_checked:
         case Verdict::pass:

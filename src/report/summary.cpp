@@ -127,7 +127,7 @@ std::string input_digest(const LiftAssessment& a, UnitSystem u) {
                  qty(*job.hoist.rope_minimum_breaking_load, Dimension::force, u);
     }
     out += field("Hoist", hoist);
-    out += field("Rated load", rated_load_statement(a, u));
+    out += field("Rating basis", rated_load_statement(a, u));
     out += field("Hook block", "mass " + qty(job.hook_block.mass, Dimension::mass, u));
 
     std::string rigging = "length hook to load CG " + qty(job.rigging.length, Dimension::length, u) +
@@ -173,7 +173,7 @@ std::string peaks_section(const LiftAssessment& a, UnitSystem u) {
                 " parts of line; lead-line pull = total x " + num(lead_line_factor(p.parts_of_line, p.sheave_efficiency)) +
                 " (sheave efficiency " + num(p.sheave_efficiency) + " per sheave, hoisting). Rigging resultant: the whole force between hook and rigging. "
                 "Sling leg tension = rigging resultant x " + num(p.sling_leg_factor) +
-                " (leg rule).", "  ", "  ");
+                " (leg rule). Swing dynamic factors: " + swing_dynamic_factor_scope + ".", "  ", "  ");
     out += past_validity_note(p);
     return out;
 }
