@@ -375,3 +375,9 @@ TEST_CASE("the validation page cites the project's own list of sources", "[verdi
     CHECK(contains(sources, "Kibble & Berkshire"));
     CHECK(contains(sources, "sheave"));
 }
+
+TEST_CASE("four-digit rounding keeps large values out of exponent form", "[verdicts]") {
+    CHECK(text::num4(17055.6) == "17056");
+    CHECK(text::num4(1.25432) == "1.254");
+    CHECK(text::percent4(0.92913) == "92.91 %");
+}

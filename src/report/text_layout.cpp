@@ -2,6 +2,7 @@
 #include "plumb/text_layout.hpp"
 
 #include <algorithm>
+#include <cmath>
 #include <cstdio>
 
 namespace plumb::text {
@@ -31,7 +32,12 @@ std::string qty(double si, Dimension d, UnitSystem u) { return with_unit(num(sho
 
 std::string seconds(double t) { return num(t) + " s"; }
 
-std::string num4(double v) { return printf_string("%.4g", v); }
+// Large values keep their whole digits rather than turn to exponent form
+// (17060 lbf, not 1.706e+04 lbf).
+std::string num4(double v) {
+    if (std::fabs(v) >= 1e4 && std::fabs(v) < 1e15) return printf_string("%.0f", v);
+    return printf_string("%.4g", v);
+}
 
 std::string qty4(double si, Dimension d, UnitSystem u) { return with_unit(num4(shown_value(si, d, u)), d, u); }
 
