@@ -266,3 +266,73 @@ TEST_CASE("a mistyped command is named in the error", "[cli]") {
     CHECK(r.status == 2);
     CHECK_THAT(r.err, Catch::Contains("unknown command 'chek'"));
 }
+
+namespace {
+
+// Every rating and limit given, all generous: every check is made and passes.
+// Invented numbers.
+const char* const clean_pass_job = R"(job:
+  title: CLI strict test lift
+motion:
+  moves:
+    - distance: 4 m
+      top_speed: 0.4 m/s
+      acceleration: 0.2 m/s^2
+hoist:
+  rope_length: 10 m
+  parts_of_line: 2
+  rated_load: 10 t
+  rope_wll: 5 t
+  rope_minimum_breaking_load: 300 kN
+hook_block:
+  mass: 200 kg
+rigging:
+  length: 2 m
+  leg_wll: 10 t
+load:
+  mass: 2 t
+limits:
+  hook_rope_angle: 20 deg
+  load_angle: 20 deg
+  load_offset: 5 m
+  residual_swing: 5 m
+  dynamic_factor: 2
+  rope_design_factor: 3
+)";
+
+}  // namespace
+
+TEST_CASE("with --strict a CAUTION exits 4 and without it 0", "[cli]") {
+    const std::string job = quoted(std::string(PLUMB_CASES_DIR) + "/gantry-drive-log.yaml");
+    const RunResult plain = run_plumb("check " + job);
+    REQUIRE(contains(plain.out, "OVERALL VERDICT: CAUTION"));
+    CHECK(plain.status == 0);
+    CHECK(run_plumb("check --strict " + job).status == 4);
+}
+
+TEST_CASE("with --strict a PASS with a check not made exits 4", "[cli]") {
+    plumb_test::ScratchFolder folder;
+    const std::string path = folder.file("job.yaml");
+    std::string text = clean_pass_job;
+    text.erase(text.find("  rope_design_factor: 3\n"));
+    plumb_test::write_text(path, text);
+    const RunResult strict = run_plumb("check --strict " + quoted(path));
+    CHECK(contains(strict.out, "OVERALL VERDICT: PASS, 1 of 11 checks NOT CHECKED"));
+    CHECK(strict.status == 4);
+    CHECK(run_plumb("check " + quoted(path)).status == 0);
+}
+
+TEST_CASE("with --strict a PASS with every check made exits 0", "[cli]") {
+    plumb_test::ScratchFolder folder;
+    const std::string path = folder.file("job.yaml");
+    plumb_test::write_text(path, clean_pass_job);
+    const RunResult strict = run_plumb("check --strict " + quoted(path));
+    CHECK(contains(strict.out, "OVERALL VERDICT: PASS\n"));
+    CHECK(strict.status == 0);
+}
+
+TEST_CASE("the help documents --strict and exit status 4", "[cli]") {
+    const RunResult help = run_plumb("check --help");
+    CHECK(contains(help.out, "--strict"));
+    CHECK(contains(run_plumb("--help").out, "4 (check --strict only)"));
+}

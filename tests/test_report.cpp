@@ -99,6 +99,7 @@ plumb::LiftAssessment synthetic_assessment() {
     offset.dimension = plumb::Dimension::length;
     offset.value = 0.4;
     offset.limit = 1.0;
+    offset.utilisation = 0.4;
     offset.margin = 0.6;
     offset.value_time = 3.0;
     offset.verdict = Verdict::pass;
@@ -108,6 +109,7 @@ plumb::LiftAssessment synthetic_assessment() {
     angle.dimension = plumb::Dimension::angle;
     angle.value = 6.0 * deg;
     angle.limit = 5.0 * deg;
+    angle.utilisation = 1.2;
     angle.margin = -0.2;
     angle.value_time = 2.5;
     angle.first_exceedance = 1.75;
@@ -208,7 +210,8 @@ TEST_CASE("the summary shows header, verdicts, notices and statistics", "[report
     CHECK(contains(summary, "hook_rope_angle"));
     CHECK(contains(summary, "load_offset"));
     CHECK(contains(summary, "t = 1.75 s"));  // first exceedance of the failing check
-    CHECK(contains(summary, "60.0 %"));      // margin of the passing check, 1 - 0.4/1
+    CHECK(contains(summary, "40 %"));        // utilisation of the passing check, 0.4/1
+    CHECK(contains(summary, "120 %"));       // utilisation of the failing check, 6/5
     CHECK(contains(flat, "Synthetic notice: the rigging length was given to the nearest metre."));
     CHECK(contains(flat, "321 steps"));
     CHECK(contains(flat, "4321 right-hand-side evaluations"));
@@ -370,12 +373,13 @@ TEST_CASE("the CSV has a header with units and one row per observation", "[repor
         const std::vector<std::string> lines = split(plumb::format_csv(a, u), '\n');
         REQUIRE(lines.size() == a.prediction.simulation.trace.size() + 1);
         const std::vector<std::string> header = split(lines[0], ',');
-        REQUIRE(header.size() == 17);
+        REQUIRE(header.size() == 18);
         CHECK(header[0] == "time [s]");
         CHECK(header[4] == "hook_rope_angle [deg]");
         CHECK(header[5] == "hook_rope_rate [deg/s]");
-        CHECK(header[15].rfind("rigging_resultant [", 0) == 0);
-        CHECK(header[16].rfind("sling_leg_tension [", 0) == 0);
+        CHECK(header[14].rfind("lead_line_pull [", 0) == 0);
+        CHECK(header[16].rfind("rigging_resultant [", 0) == 0);
+        CHECK(header[17].rfind("sling_leg_tension [", 0) == 0);
         for (std::size_t r = 1; r < lines.size(); ++r) {
             const std::vector<std::string> cells = split(lines[r], ',');
             REQUIRE(cells.size() == header.size());
@@ -390,9 +394,10 @@ TEST_CASE("the CSV has a header with units and one row per observation", "[repor
         CHECK(header[12] == "hoist_rope_tension [kN]");
         CHECK(std::stod(cells[12]) == Approx(32.0));
         CHECK(std::stod(cells[13]) == Approx(16.0));  // 2 parts of line
-        CHECK(std::stod(cells[15]) == Approx(29.7));
+        CHECK(std::stod(cells[14]) == Approx(16.0));  // lossless sheaves in this assessment
+        CHECK(std::stod(cells[16]) == Approx(29.7));
         // The legs share the rigging resultant: 0.5 / sin 60 deg per leg (2 legs bearing).
-        CHECK(std::stod(cells[16]) == Approx(29.7 * 0.5 / std::sin(60.0 * deg)));
+        CHECK(std::stod(cells[17]) == Approx(29.7 * 0.5 / std::sin(60.0 * deg)));
     }
     SECTION("US values") {
         const std::string csv = plumb::format_csv(a, UnitSystem::us_customary);

@@ -24,10 +24,11 @@ struct LiftPrediction {
     double end_time = 0;       // s, end of the simulated free swing
     int parts_of_line = 1;
     double sling_leg_factor = 0;  // leg tension per unit rigging resultant
+    double sheave_efficiency = 1;  // per sheave, for the lead-line pull
     std::optional<double> hoist_rope_slack_time;  // s, first time the hoist rope tension reaches zero
     std::optional<double> rigging_slack_time;     // s, first time the rigging tension reaches zero
 
-    LiftScales scales() const { return {parts_of_line, sling_leg_factor, model.static_loads}; }
+    LiftScales scales() const { return {parts_of_line, sling_leg_factor, model.static_loads, sheave_efficiency}; }
     // The peak of a simulated or derived quantity (a derived one at its base's time).
     Peak peak(Quantity q) const;
     std::optional<double> static_value(Quantity q) const;
@@ -36,7 +37,9 @@ struct LiftPrediction {
     std::optional<double> valid_until() const;
 };
 
-enum class Verdict { pass, caution, fail };
+// not_checked: the check could not be made (no rating or no limit given). It
+// is never a pass: the overall verdict counts such checks and says so.
+enum class Verdict { pass, caution, fail, not_checked };
 
 struct CheckResult {
     std::string name;         // short key, e.g. "load_offset"
@@ -44,12 +47,33 @@ struct CheckResult {
     Dimension dimension = Dimension::ratio;  // for printing value and limit
     double value = 0;
     double limit = 0;
-    double margin = 0;                  // 1 - value/limit: share of the limit still unused
+    // Utilisation: the share of the limit used, value/limit for a peak (1 =
+    // at the limit; the CAUTION band starts at the job's caution fraction of
+    // it). Each check whose basis differs says so in utilisation_basis.
+    double utilisation = 0;
+    std::string utilisation_basis;      // empty: value over limit
+    double margin = 0;                  // 1 - utilisation: share of the limit still unused
     double value_time = 0;              // s, when value occurs
-    std::optional<double> first_exceedance;  // s, first time the limit is reached
+    std::optional<double> first_exceedance;  // s, first time the limit is exceeded
     Verdict verdict = Verdict::pass;
-    std::string note;
+    std::string note;                   // for NOT CHECKED: why the check could not be made
 };
+
+// What the swing dynamic factor covers and leaves out, beside every value of it.
+extern const char* const swing_dynamic_factor_scope;
+
+// How the rated load is compared: with the gross hook load (hook block,
+// rigging and load) or, for a net rating, with the load below the hook.
+const char* rating_basis_words(RatingBasis b);
+
+// What identifies a run: program version, when, and the input files' digests.
+struct RunRecord {
+    std::string program_version;
+    std::string started_utc;           // ISO 8601, e.g. 2026-12-02T07:21:58Z
+    std::string job_file_sha256;       // empty: the job was not read from a file
+    std::string speed_history_sha256;  // empty: no speed history
+};
+RunRecord record_run(const Job& job);
 
 struct LiftAssessment {
     Job job;
@@ -57,7 +81,15 @@ struct LiftAssessment {
     std::vector<CheckResult> checks;
     Verdict overall = Verdict::pass;
     std::vector<std::string> notices;  // warnings about the input a planner must see
+    RunRecord run;
 };
+
+// Checks that could not be made (verdict NOT CHECKED).
+std::size_t checks_not_made(const std::vector<CheckResult>& checks);
+// The static hook load the rated load is compared with (gross or net, by the
+// job's rating basis), in N, and its share of the rated load.
+double static_rated_hook_load(const Job& job, const LiftPrediction& p);
+double static_share_of_rated_load(const Job& job, const LiftPrediction& p);
 
 // Seconds of free swing after the last move when the job does not say: four
 // periods of the slow swing mode, at least 20 s (20 s for a model without modes).
@@ -84,7 +116,9 @@ std::vector<CheckResult> run_checks(const Job& job, const LiftPrediction& predic
 // The whole job: predict with the watch levels of its limits, then check.
 LiftAssessment assess_lift(const Job& job, bool keep_time_series);
 
+// The worst verdict of the checks made; NOT CHECKED does not raise it (the
+// outputs state how many checks were not made beside it).
 Verdict overall_verdict(const std::vector<CheckResult>& checks);
-const char* verdict_word(Verdict v);  // "PASS", "CAUTION", "FAIL"
+const char* verdict_word(Verdict v);  // "PASS", "CAUTION", "FAIL", "NOT CHECKED"
 
 }  // namespace plumb

@@ -13,6 +13,7 @@ enum class ExitStatus : int {
     check_failed = 1,
     bad_input = 2,
     numerical_failure = 3,
+    not_clean_pass = 4,  // with --strict: no check fails, but one is CAUTION or NOT CHECKED
 };
 
 class Error : public std::runtime_error {

@@ -42,7 +42,13 @@ struct SupportMotionSpec {
     // Neither: the support stays at rest throughout (`fixed_support: true`), a
     // free swing from the load's initial angle and rate.
     bool fixed_support = false;
+    std::string speed_history_sha256;        // digest of the file's bytes, for the report
 };
+
+// What the hoist's rated load covers. gross: the rating is compared with the
+// whole hook load (hook block, rigging and load); net: the hook block and
+// rigging are deducted (the rating is for the load below the hook).
+enum class RatingBasis { gross, net };
 
 struct Hoist {
     double rope_length = 0;                          // m, sheave (or trolley) to hook block
@@ -50,6 +56,11 @@ struct Hoist {
     double rated_load = 0;                           // N, the hoist's rated load at the hook (WLL)
     std::optional<double> rope_wll;                  // N, per line (one part of line)
     std::optional<double> rope_minimum_breaking_load;  // N, per line
+    RatingBasis rating_basis = RatingBasis::gross;
+    // Efficiency of one sheave (rope tension out over in, hoisting). The
+    // default is the common-practice value for roller-bearing sheaves.
+    double sheave_efficiency = 0.98;
+    bool sheave_efficiency_given = false;  // false: the default above was used
 };
 
 struct HookBlock {
@@ -87,7 +98,8 @@ struct Limits {
     std::optional<double> residual_swing;      // m, load offset amplitude after the last move ends
     std::optional<double> rope_tension_share;  // fraction of the rated load (and of the rope WLL per line)
     std::optional<double> sling_leg_share;     // fraction of the leg WLL
-    std::optional<double> dynamic_factor;      // peak hoist rope tension over static
+    std::optional<double> dynamic_factor;      // swing dynamic factor: peak hoist rope tension over static
+    std::optional<double> rope_design_factor;  // least allowed minimum breaking load over lead-line pull
     double caution_fraction = 0.9;             // a value above this share of its limit is a CAUTION
 };
 
@@ -110,6 +122,7 @@ struct Job {
     std::string reference;
     std::string source_file;  // the job file, for the report
     JobUnits declared_units = JobUnits::none;  // the file's `units:` (bare numbers read in it); none: every quantity carried its unit
+    std::string source_sha256;  // digest of the job file's bytes as read; empty: not from a file
     SupportMotionSpec motion;
     Hoist hoist;
     HookBlock hook_block;

@@ -34,13 +34,14 @@ enum class Quantity : std::size_t {
     load_offset,
     hoist_rope_tension,
     line_pull,
+    lead_line_pull,
     rigging_tension,
     rigging_resultant,
     sling_leg_tension,
     dynamic_factor,
     rigging_dynamic_factor,
 };
-inline constexpr std::size_t quantity_count = 19;
+inline constexpr std::size_t quantity_count = 20;
 
 constexpr std::size_t index_of(Quantity q) { return static_cast<std::size_t>(q); }
 
@@ -65,7 +66,15 @@ struct LiftScales {
     int parts_of_line = 1;
     double sling_leg_factor = 0;  // leg tension per unit rigging resultant
     StaticLoads static_loads;
+    double sheave_efficiency = 1;  // per sheave, for the lead-line pull
 };
+
+// Lead-line pull per unit total hoist rope tension, hoisting: the rope leaving
+// the reeving carries the most, each sheave passed loses a share 1 - e, so the
+// n parts carry P e, P e^2, ... P e^n (the first part has already passed one
+// sheave) and P = W / (e + e^2 + ... + e^n). Lead or deflector sheaves between
+// the reeving and the drum are not counted. e = 1 gives W / n.
+double lead_line_factor(int parts_of_line, double sheave_efficiency);
 
 // Which static load a simulated quantity is measured against, if any.
 enum class StaticReference { none, hoist_rope_tension, rigging_tension };

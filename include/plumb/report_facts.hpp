@@ -53,6 +53,12 @@ std::vector<InputFact> input_facts(const LiftAssessment& a, UnitSystem u);
 std::string parts_of_line_text(int parts);
 
 std::string verdict_explanation(const LiftAssessment& a);
+// "PASS", or "PASS, 3 of 11 checks NOT CHECKED": the overall verdict as every output words it.
+std::string overall_line(const LiftAssessment& a);
+// "name: NOT CHECKED: reason", one per check that could not be made.
+std::vector<std::string> not_checked_statements(const LiftAssessment& a);
+// What the rated load is compared with, and the static hook load as a share of it.
+std::string rated_load_statement(const LiftAssessment& a, UnitSystem u);
 
 std::string mode_shape_words(double load_per_hook_angle);
 double frequency_hz(const SwingMode& m);

@@ -23,10 +23,12 @@ struct Peak {
 
 // Record the first time a quantity reaches a level (from below, or from above
 // when below is true: used for slack, tension falling to zero).
+// With after_motion set, only the free swing after the last move counts.
 struct WatchLevel {
     Quantity quantity;
     double level = 0;
     bool below = false;
+    bool after_motion = false;
 };
 
 struct SimulationRequest {

@@ -19,6 +19,11 @@ std::string num(double v);
 std::string qty(double si, Dimension d, UnitSystem u);
 std::string seconds(double t);         // "12.5 s"
 std::string percent(double fraction);  // "12.5 %"
+// Four significant digits, for the verdict table a planner reads at a glance
+// (the JSON and CSV keep full precision).
+std::string num4(double v);
+std::string qty4(double si, Dimension d, UnitSystem u);
+std::string percent4(double fraction);  // "87.34 %"
 
 // Wrap text to width columns; the first line starts with first, the rest with rest.
 std::string wrap(std::string_view text, std::string_view first, std::string_view rest,

@@ -59,7 +59,8 @@ MotionOutcome assess_motion(const Job& job, const SupportMotion& motion, std::st
     o.valid = !p.valid_until().has_value();
     double worst = -1e300;
     for (const CheckResult& c : o.checks) {
-        const double used = 1 - c.margin;  // share of the limit used, read the same way for every check
+        if (c.verdict == Verdict::not_checked) continue;  // no limit: nothing used of it
+        const double used = c.utilisation;  // share of the limit used, read the same way for every check
         if (used > worst) {
             worst = used;
             o.limiting_check = c.name;

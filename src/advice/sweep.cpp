@@ -5,6 +5,9 @@
 // order and the numbers do not depend on the thread count.
 #include "plumb/sweep.hpp"
 
+#include <cmath>
+#include <limits>
+
 #include <algorithm>
 #include <atomic>
 #include <chrono>
@@ -110,7 +113,8 @@ SweepCaseResult run_job_case(const std::string& job_text, const std::string& job
         for (const std::string& name : check_names) {
             const auto c = std::find_if(a.checks.begin(), a.checks.end(), [&](const CheckResult& x) { return x.name == name; });
             r.check_verdicts.push_back(c == a.checks.end() ? "NOT CHECKED" : verdict_word(c->verdict));
-            r.check_utilisations.push_back(c == a.checks.end() ? 0.0 : 1 - c->margin);
+            const bool made = c != a.checks.end() && c->verdict != Verdict::not_checked;
+            r.check_utilisations.push_back(made ? c->utilisation : std::numeric_limits<double>::quiet_NaN());
         }
     } catch (const InputError& e) {
         r.overall = "INPUT ERROR";
@@ -285,7 +289,10 @@ std::string format_sweep_csv(const std::vector<VariedField>& fields, const Sweep
         }
         for (std::size_t c = 0; c < result.check_names.size(); ++c) {
             if (c < r.check_verdicts.size()) {
-                std::snprintf(buffer, sizeof buffer, "%.6g", r.check_utilisations[c]);
+                // A check not made has no utilisation: an empty cell.
+                buffer[0] = '\0';
+                if (std::isfinite(r.check_utilisations[c]))
+                    std::snprintf(buffer, sizeof buffer, "%.6g", r.check_utilisations[c]);
                 out << "," << r.check_verdicts[c] << "," << buffer;
             } else {
                 out << ",,";

@@ -3,13 +3,19 @@
 #include "plumb/assessment.hpp"
 
 #include <algorithm>
+#include <chrono>
 #include <cmath>
+#include <ctime>
 #include <memory>
 #include <sstream>
 
 #include "plumb/model.hpp"
 #include "plumb/rigging.hpp"
 #include "plumb/work_budget.hpp"
+
+#ifndef PLUMB_VERSION
+#define PLUMB_VERSION "unknown"
+#endif
 
 namespace plumb {
 namespace {
@@ -29,9 +35,28 @@ WatchLevel slack_watch(Quantity q) { return {q, 0.0, true}; }
 // checks find their first exceedance by looking these up again, so both sides
 // use these functions and nothing else.
 double hoist_load_limit(const Job& job) { return rope_share(job) * job.hoist.rated_load; }
+// A gross rating is compared with the whole hook load (the hoist rope's total
+// tension); a net rating with the load below the hook (the rigging resultant).
+Quantity rated_hook_load(const Job& job) {
+    return job.hoist.rating_basis == RatingBasis::net ? Quantity::rigging_resultant : Quantity::hoist_rope_tension;
+}
+WatchLevel hoist_load_watch(const Job& job) { return {rated_hook_load(job), hoist_load_limit(job)}; }
+double lead_line_per_total(const Job& job) {
+    return lead_line_factor(job.hoist.parts_of_line, job.hoist.sheave_efficiency);
+}
 double line_pull_limit(const Job& job) { return rope_share(job) * *job.hoist.rope_wll; }
 WatchLevel line_pull_watch(const Job& job) {
-    return {Quantity::hoist_rope_tension, line_pull_limit(job) * job.hoist.parts_of_line};
+    return {Quantity::hoist_rope_tension, line_pull_limit(job) / lead_line_per_total(job)};
+}
+// The largest lead-line pull the design factor allows.
+double design_factor_pull(const Job& job) {
+    return *job.hoist.rope_minimum_breaking_load / *job.limits.rope_design_factor;
+}
+WatchLevel design_factor_watch(const Job& job) {
+    return {Quantity::hoist_rope_tension, design_factor_pull(job) / lead_line_per_total(job)};
+}
+bool design_factor_checkable(const Job& job) {
+    return job.hoist.rope_minimum_breaking_load && job.limits.rope_design_factor;
 }
 double sling_leg_limit(const Job& job) { return sling_share(job) * *job.rigging.leg_wll; }
 WatchLevel sling_leg_watch(const Job& job) {
@@ -40,12 +65,15 @@ WatchLevel sling_leg_watch(const Job& job) {
 WatchLevel dynamic_factor_watch(const Job& job, const StaticLoads& static_loads) {
     return {Quantity::hoist_rope_tension, *job.limits.dynamic_factor * static_loads.hoist_rope_tension};
 }
+// Residual swing: the first time after the last move that the load offset
+// exceeds the limit.
+WatchLevel residual_watch(const Job& job) { return {Quantity::load_offset, *job.limits.residual_swing, false, true}; }
 
 std::optional<double> crossing_of(const std::vector<WatchLevel>& watch, const LiftPrediction& p,
                                   const WatchLevel& level) {
     for (std::size_t i = 0; i < watch.size() && i < p.simulation.first_crossing.size(); ++i) {
         if (watch[i].quantity == level.quantity && watch[i].level == level.level &&
-            watch[i].below == level.below) {
+            watch[i].below == level.below && watch[i].after_motion == level.after_motion) {
             return p.simulation.first_crossing[i];
         }
     }
@@ -59,10 +87,29 @@ std::string format_time(double t) {
     return s.str();
 }
 
-Verdict judge(double value, double limit, double caution_fraction) {
-    if (value > limit) return Verdict::fail;
-    if (value >= caution_fraction * limit) return Verdict::caution;
+// Verdict from the utilisation (share of the limit used): over 1 fails, from
+// the caution fraction on it is a CAUTION.
+Verdict judge(double utilisation, double caution_fraction) {
+    if (utilisation > 1) return Verdict::fail;
+    if (utilisation >= caution_fraction) return Verdict::caution;
     return Verdict::pass;
+}
+
+void set_utilisation(CheckResult& c, double utilisation, double caution_fraction) {
+    c.utilisation = utilisation;
+    c.margin = 1 - utilisation;
+    c.verdict = judge(utilisation, caution_fraction);
+}
+
+// A check that could not be made, with what the job must give to make it.
+CheckResult not_checked(std::string name, std::string description, Dimension dimension, std::string reason) {
+    CheckResult c;
+    c.name = std::move(name);
+    c.description = std::move(description);
+    c.dimension = dimension;
+    c.verdict = Verdict::not_checked;
+    c.note = "NOT CHECKED: " + std::move(reason);
+    return c;
 }
 
 CheckResult limit_check(const Job& job, std::string name, std::string description, Dimension dimension,
@@ -73,10 +120,9 @@ CheckResult limit_check(const Job& job, std::string name, std::string descriptio
     c.dimension = dimension;
     c.value = value;
     c.limit = limit;
-    c.margin = 1 - value / limit;
     c.value_time = value_time;
     c.first_exceedance = first_exceedance;
-    c.verdict = judge(value, limit, job.limits.caution_fraction);
+    set_utilisation(c, value / limit, job.limits.caution_fraction);
     return c;
 }
 
@@ -90,7 +136,11 @@ CheckResult taut_check(const LiftPrediction& p, std::string name, std::string de
     c.dimension = Dimension::force;
     c.value = least.value;
     c.limit = 0;
-    c.margin = least.value / static_tension;  // share of the static tension that is left at the least
+    // Utilisation of a taut check: how much of the static tension is lost at
+    // the least (100 % = slack); only slack fails.
+    c.utilisation = 1 - least.value / static_tension;
+    c.utilisation_basis = "tension lost from static, over the static tension (100 % = slack)";
+    c.margin = 1 - c.utilisation;
     c.value_time = least.time;
     c.first_exceedance = slack_time;
     c.verdict = slack_time ? Verdict::fail : Verdict::pass;
@@ -115,8 +165,10 @@ std::vector<WatchLevel> watch_levels(const Job& job, const StaticLoads& static_l
     if (l.hook_rope_angle) w.push_back({Quantity::hook_rope_angle, *l.hook_rope_angle});
     if (l.load_angle) w.push_back({Quantity::load_angle, *l.load_angle});
     if (l.load_offset) w.push_back({Quantity::load_offset, *l.load_offset});
-    w.push_back({Quantity::hoist_rope_tension, hoist_load_limit(job)});
+    if (l.residual_swing) w.push_back(residual_watch(job));
+    w.push_back(hoist_load_watch(job));
     if (job.hoist.rope_wll) w.push_back(line_pull_watch(job));
+    if (design_factor_checkable(job)) w.push_back(design_factor_watch(job));
     if (job.rigging.leg_wll) w.push_back(sling_leg_watch(job));
     if (l.dynamic_factor) w.push_back(dynamic_factor_watch(job, static_loads));
     w.push_back(slack_watch(Quantity::hoist_rope_tension));
@@ -146,8 +198,14 @@ ModelDescription describe_for_lift(const SwingModel& model) {
         "Sling leg tension comes from the rigging resultant by the leg rule W / (n sin beta): n "
         "legs taken as bearing, beta the leg angle from the horizontal.");
     d.assumptions.push_back(
-        "Line pull per part of line = total hoist rope tension / parts of line; sheave friction is "
-        "ignored.");
+        "Line pull per part of line = total hoist rope tension / parts of line (no sheave losses). "
+        "The lead-line pull, checked against the rope WLL and the rope design factor, adds sheave "
+        "losses while hoisting: W / (e + e^2 + ... + e^n) for n parts of line and an efficiency e "
+        "per sheave (default 0.98, roller bearings: common practice, no source); lead sheaves "
+        "between the reeving and the drum are not counted.");
+    d.assumptions.push_back(
+        "The swing dynamic factor is the peak over the static hoist rope tension from swing during "
+        "travel only: hoisting and lowering, lift-off, brake and impact effects are not in it.");
     return d;
 }
 
@@ -172,10 +230,28 @@ LiftPrediction predict_lift(const Job& job, const SwingModel& model, const Model
 
     p.parts_of_line = job.hoist.parts_of_line;
     p.sling_leg_factor = sling_leg_factor(job);
+    p.sheave_efficiency = job.hoist.sheave_efficiency;
     p.hoist_rope_slack_time = crossing_of(watch, p, slack_watch(Quantity::hoist_rope_tension));
     p.rigging_slack_time = crossing_of(watch, p, slack_watch(Quantity::rigging_tension));
     return p;
 }
+
+const char* const swing_dynamic_factor_scope =
+    "swing during travel only: hoisting, lift-off, brake and impact effects are not included";
+
+namespace {
+
+std::string sheave_words(const Job& job) {
+    std::ostringstream s;
+    s << job.hoist.parts_of_line << (job.hoist.parts_of_line == 1 ? " part" : " parts") << " of line, sheave efficiency "
+      << job.hoist.sheave_efficiency;
+    s << (job.hoist.sheave_efficiency_given ? " (from the job)" : " (default for roller bearings: common practice, no source)");
+    return s.str();
+}
+
+std::string missing_limit(const char* key) { return std::string("no limit given (limits.") + key + ")"; }
+
+}  // namespace
 
 std::vector<CheckResult> run_checks(const Job& job, const LiftPrediction& p, const std::vector<WatchLevel>& watch) {
     const Limits& l = job.limits;
@@ -188,55 +264,92 @@ std::vector<CheckResult> run_checks(const Job& job, const LiftPrediction& p, con
         return limit_check(job, std::move(name), std::move(description), quantity_spec(q).dimension, peak.value,
                            peak.time, limit, first_exceedance);
     };
+    // A swing limit of the job, or NOT CHECKED without it.
+    auto swing_check = [&](Quantity q, const char* key, const char* description, const std::optional<double>& limit) {
+        if (!limit) return not_checked(key, description, quantity_spec(q).dimension, missing_limit(key));
+        return peak_check(q, key, description, *limit, first_at({q, *limit}));
+    };
     std::vector<CheckResult> checks;
-    if (l.hook_rope_angle) {
-        checks.push_back(peak_check(Quantity::hook_rope_angle, "hook_rope_angle", "peak angle of the hoist rope from vertical",
-                                    *l.hook_rope_angle, first_at({Quantity::hook_rope_angle, *l.hook_rope_angle})));
-    }
-    if (l.load_angle) {
-        checks.push_back(peak_check(Quantity::load_angle, "load_angle", "peak angle of the rigging (hook to load) from vertical",
-                                    *l.load_angle, first_at({Quantity::load_angle, *l.load_angle})));
-    }
-    if (l.load_offset) {
-        checks.push_back(peak_check(Quantity::load_offset, "load_offset", "peak horizontal offset of the load from the support",
-                                    *l.load_offset, first_at({Quantity::load_offset, *l.load_offset})));
-    }
+    checks.push_back(swing_check(Quantity::hook_rope_angle, "hook_rope_angle",
+                                 "peak angle of the hoist rope from vertical", l.hook_rope_angle));
+    checks.push_back(swing_check(Quantity::load_angle, "load_angle",
+                                 "peak angle of the rigging (hook to load) from vertical", l.load_angle));
+    checks.push_back(swing_check(Quantity::load_offset, "load_offset",
+                                 "peak horizontal offset of the load from the support", l.load_offset));
+    const char* residual_words = "load offset amplitude after the last move ends";
     if (l.residual_swing) {
         const Peak& residual = s.residual[Quantity::load_offset];
-        CheckResult c = limit_check(job, "residual_swing", "load offset amplitude after the last move ends",
-                                    Dimension::length, residual.value, residual.time, *l.residual_swing, std::nullopt);
-        c.note = "largest offset from t = " + format_time(s.residual_from) + " to " + format_time(p.end_time) + " s";
+        CheckResult c = limit_check(job, "residual_swing", residual_words, Dimension::length, residual.value,
+                                    residual.time, *l.residual_swing, first_at(residual_watch(job)));
+        c.note = "largest offset from t = " + format_time(s.residual_from) + " to " + format_time(p.end_time) +
+                 " s; first exceeded is the first time after the last move ends";
         checks.push_back(std::move(c));
+    } else {
+        checks.push_back(not_checked("residual_swing", residual_words, Dimension::length, missing_limit("residual_swing")));
     }
     {
-        const double limit = hoist_load_limit(job);
-        CheckResult c = peak_check(Quantity::hoist_rope_tension, "hoist_load",
-                                   "peak hoist rope tension (all parts of line) against the rated load", limit,
-                                   first_at({Quantity::hoist_rope_tension, limit}));
-        if (!l.rope_tension_share) c.note = "no rope_tension limit set: checked at 100 % of the rated load";
+        const bool net = job.hoist.rating_basis == RatingBasis::net;
+        CheckResult c = peak_check(rated_hook_load(job), "hoist_load",
+                                   net ? "peak load below the hook (rigging resultant) against the net rated load"
+                                       : "peak hoist rope tension (all parts of line) against the rated load",
+                                   hoist_load_limit(job), first_at(hoist_load_watch(job)));
+        c.note = std::string("rated load compared with the ") + rating_basis_words(job.hoist.rating_basis);
+        if (!l.rope_tension_share) c.note += "; no rope_tension limit set: checked at 100 % of the rated load";
         checks.push_back(std::move(c));
     }
+    const char* lead_words = "peak lead-line pull (with sheave losses) against the rope WLL";
     if (job.hoist.rope_wll) {
-        checks.push_back(peak_check(Quantity::line_pull, "line_pull", "peak tension per part of line against the rope WLL",
-                                    line_pull_limit(job), first_at(line_pull_watch(job))));
+        CheckResult c = peak_check(Quantity::lead_line_pull, "lead_line_pull", lead_words, line_pull_limit(job),
+                                   first_at(line_pull_watch(job)));
+        c.note = sheave_words(job);
+        checks.push_back(std::move(c));
+    } else {
+        checks.push_back(not_checked("lead_line_pull", lead_words, Dimension::force, "no rope WLL given (hoist.rope_wll)"));
     }
+    const char* design_words = "rope design factor: minimum breaking load over peak lead-line pull";
+    if (design_factor_checkable(job)) {
+        const Peak pull = p.peak(Quantity::lead_line_pull);
+        CheckResult c;
+        c.name = "rope_design_factor";
+        c.description = design_words;
+        c.dimension = Dimension::ratio;
+        c.value = *job.hoist.rope_minimum_breaking_load / pull.value;
+        c.limit = *l.rope_design_factor;
+        c.value_time = pull.time;
+        c.first_exceedance = first_at(design_factor_watch(job));
+        // The factor must stay at or above its limit: utilisation is the
+        // factor required over the factor achieved.
+        set_utilisation(c, c.limit / c.value, l.caution_fraction);
+        c.utilisation_basis = "required factor over achieved factor";
+        c.note = "the limit is a least value; " + sheave_words(job);
+        checks.push_back(std::move(c));
+    } else {
+        checks.push_back(not_checked("rope_design_factor", design_words, Dimension::ratio,
+                                     job.hoist.rope_minimum_breaking_load
+                                         ? missing_limit("rope_design_factor")
+                                         : "no minimum breaking load given (hoist.rope_minimum_breaking_load)"));
+    }
+    const char* leg_words = "peak sling leg tension against the leg WLL";
     if (job.rigging.leg_wll) {
-        checks.push_back(peak_check(Quantity::sling_leg_tension, "sling_leg_tension",
-                                    "peak sling leg tension against the leg WLL", sling_leg_limit(job),
-                                    first_at(sling_leg_watch(job))));
+        checks.push_back(peak_check(Quantity::sling_leg_tension, "sling_leg_tension", leg_words,
+                                    sling_leg_limit(job), first_at(sling_leg_watch(job))));
+    } else {
+        checks.push_back(not_checked("sling_leg_tension", leg_words, Dimension::force, "no leg WLL given (rigging.leg_wll)"));
     }
+    const std::string factor_words =
+        std::string("swing dynamic factor: peak over static hoist rope tension (") + swing_dynamic_factor_scope + ")";
     if (l.dynamic_factor) {
-        CheckResult c = peak_check(Quantity::dynamic_factor, "dynamic_factor", "peak over static hoist rope tension",
+        CheckResult c = peak_check(Quantity::dynamic_factor, "swing_dynamic_factor", factor_words,
                                    *l.dynamic_factor, first_at(dynamic_factor_watch(job, p.model.static_loads)));
         // What a dynamic factor limit allows is the increment above 1: the
-        // margin and the caution band are shares of that increment.
+        // utilisation and the caution band are shares of that increment.
         if (*l.dynamic_factor > 1) {
-            const double used = (c.value - 1) / (*l.dynamic_factor - 1);
-            c.margin = 1 - used;
-            c.verdict = judge(used, 1.0, l.caution_fraction);
-            c.note = "margin and caution band apply to the increment above 1";
+            set_utilisation(c, (c.value - 1) / (*l.dynamic_factor - 1), l.caution_fraction);
+            c.utilisation_basis = "increment above 1: (value - 1) / (limit - 1)";
         }
         checks.push_back(std::move(c));
+    } else {
+        checks.push_back(not_checked("swing_dynamic_factor", factor_words, Dimension::ratio, missing_limit("dynamic_factor")));
     }
     checks.push_back(taut_check(p, "hoist_rope_taut", "least hoist rope tension (must stay above zero)",
                                 s.least[Quantity::hoist_rope_tension], p.model.static_loads.hoist_rope_tension,
@@ -249,8 +362,31 @@ std::vector<CheckResult> run_checks(const Job& job, const LiftPrediction& p, con
 
 Verdict overall_verdict(const std::vector<CheckResult>& checks) {
     Verdict worst = Verdict::pass;
-    for (const CheckResult& c : checks) worst = std::max(worst, c.verdict);
+    for (const CheckResult& c : checks) {
+        if (c.verdict != Verdict::not_checked) worst = std::max(worst, c.verdict);
+    }
     return worst;
+}
+
+std::size_t checks_not_made(const std::vector<CheckResult>& checks) {
+    return static_cast<std::size_t>(std::count_if(
+        checks.begin(), checks.end(), [](const CheckResult& c) { return c.verdict == Verdict::not_checked; }));
+}
+
+const char* rating_basis_words(RatingBasis b) {
+    switch (b) {
+        case RatingBasis::gross: return "gross hook load (hook block, rigging and load)";
+        case RatingBasis::net: return "net load (hook block and rigging deducted: the load below the hook)";
+    }
+    return "?";
+}
+
+double static_rated_hook_load(const Job& job, const LiftPrediction& p) {
+    return *p.static_value(rated_hook_load(job));
+}
+
+double static_share_of_rated_load(const Job& job, const LiftPrediction& p) {
+    return static_rated_hook_load(job, p) / job.hoist.rated_load;
 }
 
 const char* verdict_word(Verdict v) {
@@ -258,8 +394,23 @@ const char* verdict_word(Verdict v) {
         case Verdict::pass: return "PASS";
         case Verdict::caution: return "CAUTION";
         case Verdict::fail: return "FAIL";
+        case Verdict::not_checked: return "NOT CHECKED";
     }
     return "?";
+}
+
+RunRecord record_run(const Job& job) {
+    RunRecord r;
+    r.program_version = PLUMB_VERSION;
+    const std::time_t now = std::chrono::system_clock::to_time_t(std::chrono::system_clock::now());
+    std::tm utc{};
+    gmtime_r(&now, &utc);
+    char text[32];
+    std::strftime(text, sizeof text, "%Y-%m-%dT%H:%M:%SZ", &utc);
+    r.started_utc = text;
+    r.job_file_sha256 = job.source_sha256;
+    r.speed_history_sha256 = job.motion.speed_history_sha256;
+    return r;
 }
 
 namespace {
@@ -325,23 +476,18 @@ std::vector<std::string> input_notices(const Job& job, const LiftPrediction& p) 
     const double leg_angle = job.rigging.leg_angle_from_horizontal;
     if (job.rigging.legs > 1 && leg_angle < 30 * degree) {
         notices.push_back("sling legs at less than 30 deg from the horizontal: leg tensions rise steeply and "
-                          "rigging practice asks for a qualified person's approval");
+                          "rigging practice asks for a qualified person's approval (common practice recalled from memory, "
+                          "not confirmed against a published text)");
     }
     if (job.rigging.legs >= 3 && job.rigging.legs_bearing < job.rigging.legs) {
         notices.push_back("a " + std::to_string(job.rigging.legs) + "-leg sling is counted as " +
                           std::to_string(job.rigging.legs_bearing) +
-                          " legs bearing the load (a rigid or uneven load may hang on fewer legs)");
+                          " legs bearing the load (a rigid or uneven load may hang on fewer legs; rigging practice "
+                          "recalled from memory, not confirmed against a published text: your standard governs)");
     }
-    if (p.model.static_loads.hoist_rope_tension > job.hoist.rated_load) {
-        notices.push_back("the static hook load (hook block, rigging and load) already exceeds the rated load");
-    }
-    const double peak_line_pull = p.peak(Quantity::line_pull).value;
-    if (job.hoist.rope_minimum_breaking_load && peak_line_pull > 0) {
-        std::ostringstream s;
-        s.precision(2);
-        s << std::fixed << "rope design factor at the peak line pull: " << *job.hoist.rope_minimum_breaking_load / peak_line_pull
-          << " (minimum breaking load over peak line pull); compare with the factor the crane manufacturer and your standard require";
-        notices.push_back(s.str());
+    if (static_share_of_rated_load(job, p) > 1) {
+        notices.push_back(std::string("the static hook load already exceeds the rated load (compared with the ") +
+                          rating_basis_words(job.hoist.rating_basis) + ")");
     }
     if (!job.motion.speed_history.empty()) {
         notices.push_back("support motion taken from the speed history " + job.motion.speed_history_file +
@@ -362,6 +508,7 @@ LiftAssessment assess_lift(const Job& job, bool keep_time_series) {
     a.checks = run_checks(job, a.prediction, watch);
     a.overall = overall_verdict(a.checks);
     a.notices = input_notices(job, a.prediction);
+    a.run = record_run(job);
     return a;
 }
 

@@ -38,6 +38,7 @@ struct Options {
     bool csv_given = false;
     bool report_given = false;
     bool modes_json = false;  // plumb modes --json: the modes as JSON on standard output
+    bool strict = false;  // CAUTION or NOT CHECKED exits 4
     plumb::UnitSystem units = plumb::UnitSystem::si;
 };
 
@@ -158,6 +159,10 @@ int run_check(const Options& options) {
     if (assessment.overall == plumb::Verdict::fail || assessment.prediction.valid_until()) {
         return static_cast<int>(plumb::ExitStatus::check_failed);
     }
+    if (options.strict &&
+        (assessment.overall == plumb::Verdict::caution || plumb::checks_not_made(assessment.checks) > 0)) {
+        return static_cast<int>(plumb::ExitStatus::not_clean_pass);
+    }
     return static_cast<int>(plumb::ExitStatus::all_checks_pass);
 }
 
@@ -186,8 +191,10 @@ int run(int argc, char** argv) {
     app.set_version_flag("--version", "plumb " PLUMB_VERSION);
     app.require_subcommand(1);
     app.footer(
-        "Exit status: 0 no check fails (PASS or CAUTION), 1 a check fails,\n"
-        "2 bad input, command line or output file, 3 numerical or internal failure.");
+        "Exit status: 0 no check fails (PASS or CAUTION; with check --strict: every check\n"
+        "made and PASS), 1 a check fails, 2 bad input, command line or output file,\n"
+        "3 numerical or internal failure, 4 (check --strict only) no check fails but one is\n"
+        "CAUTION or NOT CHECKED.");
 
     Options options;
     CLI::App* check = app.add_subcommand(
@@ -207,6 +214,9 @@ int run(int argc, char** argv) {
         "to FILE ('-': to standard output)");
     report->option_text("FILE");
     add_units_option(*check, options);
+    check->add_flag("--strict", options.strict,
+                    "Exit with status 4 when no check fails but a check is CAUTION or NOT CHECKED "
+                    "(status 0 then means every check was made and passed)");
 
     CLI::App* modes = app.add_subcommand(
         "modes", "Print the two natural swing modes (periods, frequencies, shapes) of the job");

@@ -30,6 +30,7 @@
 #include "input/yaml_marks.hpp"
 #include "plumb/errors.hpp"
 #include "plumb/rigging.hpp"
+#include "plumb/sha256.hpp"
 #include "plumb/units.hpp"
 
 namespace plumb {
@@ -53,14 +54,15 @@ const KeyList job_keys{"title", "reference"};
 const KeyList motion_keys{"moves", "speed_history", "fixed_support", "emergency_deceleration"};
 const KeyList move_keys{"distance", "top_speed", "acceleration", "deceleration", "jerk", "pause_before"};
 const KeyList hoist_keys{"rope_length", "parts_of_line", "rated_load", "rope_wll",
-                         "rope_minimum_breaking_load"};
+                         "rope_minimum_breaking_load", "rated_load_basis", "sheave_efficiency"};
 const KeyList hook_block_keys{"mass"};
 const KeyList rigging_keys{"length", "legs", "leg_angle_from_horizontal", "leg_angle_from_vertical",
                            "leg_length", "spread", "legs_bearing", "leg_wll"};
 const KeyList load_keys{"mass", "radius_of_gyration", "initial_angle", "initial_rate"};
 const KeyList environment_keys{"gravity"};
 const KeyList limits_keys{"hook_rope_angle", "load_angle", "load_offset", "residual_swing",
-                          "rope_tension", "sling_leg_tension", "dynamic_factor", "caution_at"};
+                          "rope_tension", "sling_leg_tension", "dynamic_factor", "caution_at",
+                          "rope_design_factor"};
 const KeyList analysis_keys{"duration_after", "output_step", "relative_tolerance",
                             "absolute_tolerance", "integrator"};
 
@@ -397,6 +399,7 @@ void read_speed_history(const Section& s, const Entry& e, SupportMotionSpec& mot
         s.fail_at(e, "speed history '" + shown + "': " + err.what());
     }
     motion.speed_history = parse_speed_history(content, shown);
+    motion.speed_history_sha256 = sha256_hex(content);
     motion.speed_history_file = printable(shown);  // the job's folder may have any bytes in its name
 }
 
@@ -489,6 +492,21 @@ void read_hoist(const Section& s, Hoist& h) {
                       "the minimum breaking load " + show(*h.rope_minimum_breaking_load, Dimension::load) +
                           " must be more than the rope WLL " + show(*h.rope_wll, Dimension::load) +
                           ": check both values");
+    }
+
+    if (const Entry* e = s.find("rated_load_basis")) {
+        const std::string basis(trim(s.text(*e)));
+        if (basis == "gross") h.rating_basis = RatingBasis::gross;
+        else if (basis == "net") h.rating_basis = RatingBasis::net;
+        else
+            s.fail_at(*e, "expected gross (the rated load covers hook block, rigging and load) or net (hook "
+                          "block and rigging deducted), got '" + basis + "'");
+    }
+    if (const auto e = s.optional_quantity("sheave_efficiency", Dimension::ratio)) {
+        s.check_range("sheave_efficiency", *e, Dimension::ratio, 0.5, true, 1, true,
+                      "the efficiency of one sheave, e.g. 0.98 (roller bearings) or 0.96 (plain bearings)");
+        h.sheave_efficiency = *e;
+        h.sheave_efficiency_given = true;
     }
 }
 
@@ -649,6 +667,13 @@ void read_limits(const Section& s, Limits& lim) {
         lim.dynamic_factor = f;
     }
 
+    if (const Entry* e = s.find("rope_design_factor")) {
+        const double f = s.number(*e, "5");
+        if (!(f >= 1 && f <= 20))
+            s.fail_at(*e, "must be from 1 to 20 (minimum breaking load over lead-line pull), got " + number_text(f));
+        lim.rope_design_factor = f;
+    }
+
     if (const auto c = s.optional_quantity("caution_at", Dimension::ratio)) {
         s.check_range("caution_at", *c, Dimension::ratio, 0, false, 1, false,
                       "a number without % is a fraction: write '90 %' or 0.9");
@@ -733,6 +758,11 @@ Job build_job(Context ctx, const YAML::Node& root) {
             limits.fail_at("sling_leg_tension",
                            "this limit is a share of the leg WLL, but rigging.leg_wll is not given");
     }
+    if (job.limits.rope_design_factor && !job.hoist.rope_minimum_breaking_load)
+        top.section(*top.find("limits"), limits_keys)
+            .fail_at("rope_design_factor",
+                     "this limit needs the rope's minimum breaking load, but hoist.rope_minimum_breaking_load "
+                     "is not given");
     if (const Entry* e = top.find("analysis")) read_analysis(top.section(*e, analysis_keys), job.analysis);
 
     const double total = job.hook_block.mass + job.load.mass;
@@ -770,6 +800,7 @@ Job parse_job(const std::string& yaml_text, const std::string& source_name,
     try {
         Job job = build_job(ctx, root);
         job.key_locations = std::move(locations);
+        job.source_sha256 = sha256_hex(yaml_text);
         return job;
     } catch (const YAML::Exception& e) {
         // yaml-cpp should not throw past the checks above; if it does, it is still bad input.

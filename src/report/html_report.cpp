@@ -217,6 +217,10 @@ ReportTable checks_table(const LiftAssessment& a, UnitSystem u) {
                  {"first exceeded", ColumnAlign::right},
                  {"result"}};
     for (const CheckResult& c : a.checks) {
+        if (c.verdict == Verdict::not_checked) {  // nothing was computed against a limit
+            t.add_row({c.name, "-", "-", "-", "-", "-", verdict_word(c.verdict)}, verdict_mark(c.verdict));
+            continue;
+        }
         t.add_row({c.name, qty(c.value, c.dimension, u), qty(c.limit, c.dimension, u), utilisation(c),
                    "t = " + when(c.value_time, a.prediction),
                    c.first_exceedance ? "t = " + seconds(*c.first_exceedance) : "never", verdict_word(c.verdict)},
@@ -324,24 +328,29 @@ ReportTable analysis_table(const LiftAssessment& a, UnitSystem u) {
 VerdictBanner banner(const LiftAssessment& a, UnitSystem u) {
     VerdictBanner v;
     v.verdict = a.overall;
-    const std::vector<std::string> missing = limits_not_given(a.job.limits);
+    std::vector<std::string> missing;  // the checks not made, with their reasons
+    for (const CheckResult& c : a.checks) {
+        if (c.verdict != Verdict::not_checked) continue;
+        std::string words = c.name;  // the check's key in words: "swing dynamic factor"
+        std::replace(words.begin(), words.end(), '_', ' ');
+        missing.push_back(words + " (" + c.note + ")");
+    }
     v.not_checked = static_cast<int>(missing.size());
     v.summary = std::string(verdict_word(a.overall)) + ": " + verdict_explanation(a);
-    if (!missing.empty()) {
-        v.summary += " Not checked, because the job gives no limit: " + text::join(missing, ", ") + ".";
-    }
+    if (!missing.empty()) v.summary += " Not checked: " + text::join(missing, "; ") + ".";
     for (const CheckResult& c : a.checks) {
         if (a.overall != Verdict::pass && c.verdict == a.overall) {
             v.driven_by.push_back(c.name + " (" + qty(c.value, c.dimension, u) + ", " + utilisation(c) +
                                   " of its limit)");
         }
     }
-    if (a.overall == Verdict::pass && !a.checks.empty()) {
-        const auto closest = std::max_element(a.checks.begin(), a.checks.end(), [](const CheckResult& x, const CheckResult& y) {
-            return x.margin > y.margin;
-        });
-        v.driven_by.push_back("every check; closest to its limit: " + closest->name + " (" + utilisation(*closest) +
-                              " of its limit)");
+    const CheckResult* closest = nullptr;  // among the checks made
+    for (const CheckResult& c : a.checks) {
+        if (c.verdict != Verdict::not_checked && (!closest || c.utilisation > closest->utilisation)) closest = &c;
+    }
+    if (a.overall == Verdict::pass && closest) {
+        v.driven_by.push_back("every check made; closest to its limit: " + closest->name + " (" +
+                              utilisation(*closest) + " of its limit)");
     }
     if (a.checks.empty()) v.summary += " No checks were run: the job gives no limits.";
     return v;

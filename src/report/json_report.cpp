@@ -62,6 +62,9 @@ json job_json(const LiftAssessment& a, UnitSystem u) {
          {{"rope_length", quantity_json(job.hoist.rope_length, Dimension::length, u)},
           {"parts_of_line", job.hoist.parts_of_line},
           {"rated_load", quantity_json(job.hoist.rated_load, Dimension::load, u)},
+          {"rated_load_basis", job.hoist.rating_basis == RatingBasis::net ? "net" : "gross"},
+          {"sheave_efficiency", job.hoist.sheave_efficiency},
+          {"sheave_efficiency_source", job.hoist.sheave_efficiency_given ? "job" : "default: roller bearings, common practice, no source"},
           {"rope_wll_per_line", optional_quantity_json(job.hoist.rope_wll, Dimension::force, u)},
           {"rope_minimum_breaking_load_per_line",
            optional_quantity_json(job.hoist.rope_minimum_breaking_load, Dimension::force, u)}}},
@@ -132,6 +135,7 @@ std::string format_json(const LiftAssessment& a, UnitSystem u) {
         }
     }
     peaks["sling_leg_factor"] = quantity_json(p.sling_leg_factor, Dimension::ratio, u);
+    peaks["dynamic_factor_scope"] = swing_dynamic_factor_scope;
 
     json residual = {{"from", s.residual_from}, {"to", p.end_time}};
     for (const QuantitySpec& q : quantity_table()) {
@@ -139,26 +143,51 @@ std::string format_json(const LiftAssessment& a, UnitSystem u) {
     }
 
     json checks = json::array();
+    json not_checked = json::array();
     for (const CheckResult& c : a.checks) {
+        const bool made = c.verdict != Verdict::not_checked;
+        auto made_only = [made](json value) { return made ? value : json(nullptr); };
         checks.push_back({
             {"name", c.name},
             {"description", c.description},
-            {"value", shown_value(c.value, c.dimension, u)},
-            {"limit", shown_value(c.limit, c.dimension, u)},
+            {"value", made_only(shown_value(c.value, c.dimension, u))},
+            {"limit", made_only(shown_value(c.limit, c.dimension, u))},
             {"unit", json_unit(c.dimension, u)},
-            {"margin", c.margin * 100.0},
+            {"utilisation", made_only(c.utilisation * 100.0)},
+            {"utilisation_unit", "%"},
+            {"utilisation_basis", c.utilisation_basis.empty() ? "value over limit" : c.utilisation_basis},
+            {"margin", made_only(c.margin * 100.0)},
             {"margin_unit", "%"},
-            {"value_time", c.value_time},
+            {"value_time", made_only(c.value_time)},
             {"first_exceedance", optional_time(c.first_exceedance)},
             {"verdict", verdict_word(c.verdict)},
             {"note", c.note},
         });
+        if (!made) not_checked.push_back({{"name", c.name}, {"reason", c.note}});
     }
+    const double static_hook_load = static_rated_hook_load(a.job, p);
+    json rated_load = {
+        {"basis", a.job.hoist.rating_basis == RatingBasis::net ? "net" : "gross"},
+        {"compared_with", rating_basis_words(a.job.hoist.rating_basis)},
+        {"rated_load", quantity_json(a.job.hoist.rated_load, Dimension::load, u)},
+        {"static_hook_load", quantity_json(static_hook_load, Dimension::load, u)},
+        {"static_share_of_rated_load", {{"value", 100.0 * static_share_of_rated_load(a.job, p)}, {"unit", "%"}}},
+        {"statement", rated_load_statement(a, u)},
+    };
+    const RunRecord& r = a.run;
+    auto text_or_null = [](const std::string& t) { return t.empty() ? json(nullptr) : json(t); };
+    json run = {
+        {"program_version", text_or_null(r.program_version)},
+        {"started_utc", text_or_null(r.started_utc)},
+        {"job_file_sha256", text_or_null(r.job_file_sha256)},
+        {"speed_history_sha256", text_or_null(r.speed_history_sha256)},
+    };
 
     const IntegrationStats& st = s.stats;
     json doc = {
         {"program", "plumb"},
         {"output", "lift check"},
+        {"run", run},
         {"unit_system", unit_system_key(u)},
         {"units", units_json(u)},
         {"job", job_json(a, u)},
@@ -172,8 +201,12 @@ std::string format_json(const LiftAssessment& a, UnitSystem u) {
         {"peaks", peaks},
         {"residual", residual},
         {"checks", checks},
+        {"checks_not_made", not_checked.size()},
+        {"not_checked", not_checked},
+        {"rated_load", rated_load},
         {"limits_not_given", limits_not_given(a.job.limits)},
         {"overall_verdict", verdict_word(a.overall)},
+        {"overall_line", overall_line(a)},
         {"overall_explanation", verdict_explanation(a)},
         {"notices", a.notices},
         {"cautions", lift_cautions()},

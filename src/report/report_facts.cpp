@@ -22,6 +22,10 @@ const std::vector<std::string>& lift_cautions() {
         "Results hold only for the inputs given and the model stated below; a PASS is not "
         "permission to lift. Wind, ground conditions, crane deflection, operator technique and "
         "the condition of the rope and rigging are not assessed.",
+        "What the model leaves out: hoisting and lowering and lift-off from the ground or setting "
+        "down (their dynamic loads are not in the swing dynamic factor), slewing and luffing (only "
+        "straight travel of the trolley or bridge is simulated), and wind on the load. Allow for "
+        "them as the crane manufacturer and your standard require.",
     };
     return cautions;
 }
@@ -52,7 +56,8 @@ constexpr LimitRow limit_table[] = {
     {"residual_swing", "residual swing", &Limits::residual_swing, Dimension::length},
     {"rope_tension_share", "rope tension share", &Limits::rope_tension_share, Dimension::ratio},
     {"sling_leg_share", "sling leg share", &Limits::sling_leg_share, Dimension::ratio},
-    {"dynamic_factor", "dynamic factor", &Limits::dynamic_factor, Dimension::ratio},
+    {"dynamic_factor", "swing dynamic factor", &Limits::dynamic_factor, Dimension::ratio},
+    {"rope_design_factor", "rope design factor", &Limits::rope_design_factor, Dimension::ratio},
 };
 
 std::string slack_statement(const LiftPrediction& p, const char* what, double t) {
@@ -104,17 +109,54 @@ std::vector<std::string> slack_statements(const LiftPrediction& p) {
     return out;
 }
 
+std::string overall_line(const LiftAssessment& a) {
+    std::string line = verdict_word(a.overall);
+    const std::size_t missing = checks_not_made(a.checks);
+    if (missing > 0) {
+        line += ", " + std::to_string(missing) + " of " + std::to_string(a.checks.size()) +
+                (a.checks.size() == 1 ? " check" : " checks") + " NOT CHECKED";
+    }
+    return line;
+}
+
+std::vector<std::string> not_checked_statements(const LiftAssessment& a) {
+    std::vector<std::string> out;
+    for (const CheckResult& c : a.checks) {
+        if (c.verdict == Verdict::not_checked) out.push_back(c.name + ": " + c.note);
+    }
+    return out;
+}
+
+std::string rated_load_statement(const LiftAssessment& a, UnitSystem u) {
+    const Job& job = a.job;
+    const double share = static_share_of_rated_load(job, a.prediction);
+    return "Rated load " + text::qty(job.hoist.rated_load, Dimension::load, u) + " compared with the " +
+           rating_basis_words(job.hoist.rating_basis) + "; static hook load " +
+           text::qty4(static_rated_hook_load(job, a.prediction), Dimension::load, u) + " = " +
+           text::percent4(share) + " of the rated load.";
+}
+
 std::string verdict_explanation(const LiftAssessment& a) {
+    const std::size_t missing = checks_not_made(a.checks);
+    std::string not_made;
+    if (missing > 0) {
+        not_made = std::string(" ") + std::to_string(missing);
+        not_made += missing == 1 ? " check was" : " checks were";
+        not_made += " NOT CHECKED (no rating or limit given): the verdict covers only the checks made.";
+    }
     switch (a.overall) {
+        case Verdict::not_checked:
         case Verdict::pass:
-            return "every check is within its limit (read the cautions below).";
+            return (missing == 0 ? "every check is within its limit (read the cautions below)."
+                                 : "every check made is within its limit (read the cautions below).") +
+                   not_made;
         case Verdict::caution:
             return "no limit is exceeded, but at least one value is above " +
                    percent(a.job.limits.caution_fraction) +
                    " of its limit. Review the marked checks with the competent person before the "
-                   "lift.";
+                   "lift." + not_made;
         case Verdict::fail:
-            return "at least one check fails: the lift as planned does not meet its limits.";
+            return "at least one check fails: the lift as planned does not meet its limits." + not_made;
     }
     return "";
 }
@@ -188,6 +230,7 @@ std::vector<InputFact> input_facts(const LiftAssessment& a, UnitSystem u) {
                  qty(*job.hoist.rope_minimum_breaking_load, Dimension::force, u);
     }
     out.push_back({"Hoist", hoist, "hoist"});
+    out.push_back({"Rating basis", rated_load_statement(a, u), "hoist"});
     out.push_back({"Hook block", "mass " + qty(job.hook_block.mass, Dimension::mass, u), "hook_block"});
 
     std::string rigging = "length hook to load CG " + qty(job.rigging.length, Dimension::length, u) +

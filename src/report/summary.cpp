@@ -34,7 +34,7 @@ std::string past_validity_note(const LiftPrediction& p) {
 }
 
 std::string verdict_banner(const LiftAssessment& a) {
-    std::string line = std::string("OVERALL VERDICT: ") + verdict_word(a.overall);
+    std::string line = "OVERALL VERDICT: " + overall_line(a);
     if (a.overall == Verdict::caution) line = "*** " + line + " ***";
     if (a.overall == Verdict::fail) line = "!!! " + line + " !!!";
     std::string out = std::string(78, '=') + "\n";
@@ -82,6 +82,18 @@ std::string job_header(const Job& job, std::string_view title, UnitSystem units)
     return out;
 }
 
+// Which program, when, and which input bytes gave these results.
+std::string run_fields(const LiftAssessment& a) {
+    const RunRecord& r = a.run;
+    std::string out = field("plumb version", r.program_version.empty() ? "(unknown)" : r.program_version);
+    out += field("Run at (UTC)", r.started_utc.empty() ? "(unknown)" : r.started_utc);
+    out += field("Job file SHA-256", r.job_file_sha256.empty() ? "(not from a file)" : r.job_file_sha256);
+    if (!a.job.motion.speed_history_file.empty() || !r.speed_history_sha256.empty()) {
+        out += field("Speed history SHA-256", r.speed_history_sha256.empty() ? "(unknown)" : r.speed_history_sha256);
+    }
+    return out;
+}
+
 std::string input_digest(const LiftAssessment& a, UnitSystem u) {
     std::string out = heading("Input");
     for (const InputFact& f : input_facts(a, u)) out += field(f.label, f.text);
@@ -126,7 +138,7 @@ std::string peaks_section(const LiftAssessment& a, UnitSystem u) {
                 "at rest. Line pull = total / " + parts_of_line_text(p.parts_of_line) +
                 ". Rigging resultant: the whole force between hook and rigging. "
                 "Sling leg tension = rigging resultant x " + num(p.sling_leg_factor) +
-                " (leg rule).", "  ", "  ");
+                " (leg rule). Swing dynamic factors: " + swing_dynamic_factor_scope + ".", "  ", "  ");
     out += past_validity_note(p);
     return out;
 }
@@ -169,22 +181,39 @@ std::string residual_section(const LiftAssessment& a, UnitSystem u) {
     return out;
 }
 
-std::string value_text(const CheckResult& c, double v, UnitSystem u) { return qty(v, c.dimension, u); }
+std::string value_text(const CheckResult& c, double v, UnitSystem u) {
+    if (c.verdict == Verdict::not_checked) return "-";
+    return qty4(v, c.dimension, u);
+}
+
+std::string utilisation_text(const CheckResult& c) {
+    if (c.verdict == Verdict::not_checked) return "-";
+    return percent4(c.utilisation) + (c.utilisation_basis.empty() ? "" : " (b)");
+}
+
+std::string first_exceeded_text(const CheckResult& c) {
+    if (c.verdict == Verdict::not_checked) return "-";
+    return c.first_exceedance ? "t = " + seconds(*c.first_exceedance) : "never";
+}
+
+std::string when_text(const CheckResult& c, const LiftPrediction& p) {
+    if (c.verdict == Verdict::not_checked) return "-";
+    return when(c.value_time, p);
+}
 
 std::string checks_section(const LiftAssessment& a, UnitSystem u) {
     std::string out = heading("Checks");
     if (a.checks.empty()) {
         out += wrap("No checks were run: the job gives no limits.", "  ", "  ");
     } else {
-        TextTable t({"check", "value", "limit", "margin", "value at t", "first exceeded", "verdict"},
+        TextTable t({"check", "value", "limit", "utilisation", "value at t", "first exceeded", "verdict"},
                     "lrrrrrl");
         for (const CheckResult& c : a.checks) {
             std::string word = verdict_word(c.verdict);
             if (c.verdict == Verdict::fail) word += " !!!";
             if (c.verdict == Verdict::caution) word += " ***";
-            t.add({c.name, value_text(c, c.value, u), value_text(c, c.limit, u), percent(c.margin),
-                   when(c.value_time, a.prediction), c.first_exceedance ? "t = " + seconds(*c.first_exceedance) : "never",
-                   word});
+            t.add({c.name, value_text(c, c.value, u), value_text(c, c.limit, u), utilisation_text(c),
+                   when_text(c, a.prediction), first_exceeded_text(c), word});
         }
         out += t.render();
         out += past_validity_note(a.prediction);
@@ -194,8 +223,17 @@ std::string checks_section(const LiftAssessment& a, UnitSystem u) {
             if (!c.note.empty()) text += ". " + c.note;
             out += wrap(text, "  ", "    ");
         }
-        out += wrap("Margin: share of the limit still unused (1 - value/limit); a value above " +
-                        percent(a.job.limits.caution_fraction) + " of its limit is a CAUTION.",
+        out += wrap("Utilisation: value over limit (100 % = at the limit; over 100 % fails); from " +
+                        percent(a.job.limits.caution_fraction) +
+                        " utilisation on a check is a CAUTION. (b) marks a check whose utilisation has "
+                        "its own basis, stated here:",
+                    "  ", "  ");
+        for (const CheckResult& c : a.checks) {
+            if (!c.utilisation_basis.empty()) out += wrap(c.name + ": " + c.utilisation_basis, "    ", "      ");
+        }
+        out += wrap("The taut checks fail only at slack (100 %); they have no CAUTION band. Values are "
+                    "rounded to 4 significant digits here; the JSON and CSV keep full precision. NOT "
+                    "CHECKED: the check could not be made and is not a pass.",
                     "  ", "  ");
     }
     const std::vector<std::string> missing = limits_not_given(a.job.limits);
@@ -205,8 +243,7 @@ std::string checks_section(const LiftAssessment& a, UnitSystem u) {
                     "  ", "  ");
     }
     out += "\n";
-    out += wrap(std::string("Overall verdict: ") + verdict_word(a.overall) + " - " + verdict_explanation(a),
-                "  ", "  ");
+    out += wrap("Overall verdict: " + overall_line(a) + " - " + verdict_explanation(a), "  ", "  ");
     return out;
 }
 
@@ -224,6 +261,7 @@ std::string statistics_line(const LiftAssessment& a) {
 
 std::string format_summary(const LiftAssessment& a, UnitSystem units) {
     std::string out = job_header(a.job, "plumb lift check", units);
+    out += run_fields(a);
     out += "\n";  // appended apart: GCC 12 warns falsely (-Wrestrict) on "\n" + string
     out += verdict_banner(a);
     out += load_offset_sparkline(a, units);

@@ -2,6 +2,7 @@
 #include "plumb/text_layout.hpp"
 
 #include <algorithm>
+#include <cmath>
 #include <cstdio>
 
 namespace plumb::text {
@@ -16,8 +17,8 @@ std::string printf_string(const char* format, double v) {
 
 std::string num(double v) { return printf_string("%.6g", v); }
 
-std::string qty(double si, Dimension d, UnitSystem u) {
-    std::string text = num(shown_value(si, d, u));
+namespace {
+std::string with_unit(std::string text, Dimension d, UnitSystem u) {
     const std::string_view symbol = unit_symbol(d, u);
     if (!symbol.empty()) {
         text += ' ';
@@ -25,8 +26,22 @@ std::string qty(double si, Dimension d, UnitSystem u) {
     }
     return text;
 }
+}  // namespace
+
+std::string qty(double si, Dimension d, UnitSystem u) { return with_unit(num(shown_value(si, d, u)), d, u); }
 
 std::string seconds(double t) { return num(t) + " s"; }
+
+// Large values keep their whole digits rather than turn to exponent form
+// (17060 lbf, not 1.706e+04 lbf).
+std::string num4(double v) {
+    if (std::fabs(v) >= 1e4 && std::fabs(v) < 1e15) return printf_string("%.0f", v);
+    return printf_string("%.4g", v);
+}
+
+std::string qty4(double si, Dimension d, UnitSystem u) { return with_unit(num4(shown_value(si, d, u)), d, u); }
+
+std::string percent4(double fraction) { return num4(fraction * 100.0) + " %"; }
 
 std::string percent(double fraction) { return printf_string("%.1f", fraction * 100.0) + " %"; }
 

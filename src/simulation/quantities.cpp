@@ -70,6 +70,10 @@ constexpr QuantitySpec table[] = {
               true),
     derived(Quantity::line_pull, "line_pull", "line pull, per part of line", Dimension::force, series | peak,
             Quantity::hoist_rope_tension, [](double v, const LiftScales& s) { return v / s.parts_of_line; }, true),
+    derived(Quantity::lead_line_pull, "lead_line_pull", "lead-line pull, with sheave losses", Dimension::force,
+            series | peak, Quantity::hoist_rope_tension,
+            [](double v, const LiftScales& s) { return v * lead_line_factor(s.parts_of_line, s.sheave_efficiency); },
+            true),
     simulated(Quantity::rigging_tension, "rigging_tension", "rigging tension", "", Dimension::force,
               series | peak | least | crossing, [](const Observation& o) { return rigging(o).tension; }, false,
               StaticReference::rigging_tension, true),
@@ -81,10 +85,10 @@ constexpr QuantitySpec table[] = {
     derived(Quantity::sling_leg_tension, "sling_leg_tension", "sling leg tension", Dimension::force,
             series | peak, Quantity::rigging_resultant,
             [](double v, const LiftScales& s) { return v * s.sling_leg_factor; }, true),
-    derived(Quantity::dynamic_factor, "dynamic_factor", "dynamic factor, hoist rope", Dimension::ratio, peak,
+    derived(Quantity::dynamic_factor, "dynamic_factor", "swing dynamic factor, hoist rope", Dimension::ratio, peak,
             Quantity::hoist_rope_tension,
             [](double v, const LiftScales& s) { return v / s.static_loads.hoist_rope_tension; }, false),
-    derived(Quantity::rigging_dynamic_factor, "rigging_dynamic_factor", "dynamic factor, rigging",
+    derived(Quantity::rigging_dynamic_factor, "rigging_dynamic_factor", "swing dynamic factor, rigging",
             Dimension::ratio, peak, Quantity::rigging_tension,
             [](double v, const LiftScales& s) { return v / s.static_loads.rigging_tension; }, false),
 };
@@ -102,6 +106,16 @@ static_assert(table_in_enum_order(), "quantity_table() must list the quantities 
 }  // namespace
 
 std::span<const QuantitySpec> quantity_table() { return table; }
+
+double lead_line_factor(int parts_of_line, double sheave_efficiency) {
+    double carried = 0;  // e + e^2 + ... + e^n
+    double share = 1;
+    for (int k = 1; k <= parts_of_line; ++k) {
+        share *= sheave_efficiency;
+        carried += share;
+    }
+    return 1 / carried;
+}
 
 const QuantitySpec& quantity_spec(Quantity q) { return table[index_of(q)]; }
 

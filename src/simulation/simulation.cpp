@@ -104,6 +104,7 @@ public:
             for (ExtremeTracker& tracker : residual_) update(tracker);
         }
         for (std::size_t i = 0; i < request_.watch.size(); ++i) {
+            if (request_.watch[i].after_motion && step.t_begin < residual_from_) continue;
             if (!result_.first_crossing[i]) result_.first_crossing[i] = crossing(request_.watch[i]);
         }
         record_time_series();
