@@ -47,7 +47,7 @@ constexpr double inf = std::numeric_limits<double>::infinity();
 using KeyList = std::vector<std::string_view>;
 
 const KeyList top_keys{"job", "motion", "hoist", "hook_block", "rigging",
-                       "load", "environment", "limits", "analysis"};
+                       "load", "environment", "limits", "analysis", "rope"};
 const KeyList job_keys{"title", "reference"};
 const KeyList motion_keys{"moves", "speed_history"};
 const KeyList move_keys{"distance", "top_speed", "acceleration", "deceleration", "jerk", "pause_before"};
@@ -61,7 +61,9 @@ const KeyList environment_keys{"gravity"};
 const KeyList limits_keys{"hook_rope_angle", "load_angle", "load_offset", "residual_swing",
                           "rope_tension", "sling_leg_tension", "dynamic_factor", "caution_at"};
 const KeyList analysis_keys{"duration_after", "output_step", "relative_tolerance",
-                            "absolute_tolerance", "integrator"};
+                            "absolute_tolerance", "integrator", "model"};
+const KeyList rope_keys{"diameter", "fill_factor", "modulus_gpa", "axial_stiffness", "lead_length",
+                        "rigging_axial_stiffness", "damping_ratio"};
 
 struct SectionKeys {
     std::string_view name;  // as a user would look for it
@@ -75,7 +77,7 @@ const std::vector<SectionKeys> all_sections{
     {"hoist", &hoist_keys},             {"hook_block", &hook_block_keys},
     {"rigging", &rigging_keys},         {"load", &load_keys},
     {"environment", &environment_keys}, {"limits", &limits_keys},
-    {"analysis", &analysis_keys},
+    {"analysis", &analysis_keys},       {"rope", &rope_keys},
 };
 
 // ---------------------------------------------------------------- text
@@ -636,6 +638,57 @@ void read_analysis(const Section& s, AnalysisSettings& a) {
     }
 }
 
+// ---------------------------------------------------------------- model and rope
+
+void read_model(const Section& s, AnalysisSettings& a) {
+    const Entry* e = s.find("model");
+    if (e == nullptr) return;
+    const KeyList models{"rigid", "elastic"};
+    const std::string name(trim(s.text(*e)));
+    if (name == "rigid") a.model = SwingModelChoice::rigid;
+    else if (name == "elastic") a.model = SwingModelChoice::elastic;
+    else {
+        std::string problem = "expected one of " + join(models) + ", got '" + name + "'";
+        if (const auto near = nearest(name, models)) problem += "; did you mean '" + std::string(*near) + "'?";
+        s.fail_at(*e, problem);
+    }
+    // The elastic model's axial rope modes are stiff: BDF unless the job says otherwise.
+    if (a.model == SwingModelChoice::elastic && s.find("integrator") == nullptr)
+        a.integrator = IntegratorMethod::cvode_bdf;
+}
+
+RopeElasticity read_rope(const Section& s) {
+    RopeElasticity r;
+    if (const auto ea = s.optional_quantity("axial_stiffness", Dimension::force)) {
+        s.check_positive("axial_stiffness", *ea, Dimension::force);
+        r.axial_stiffness = *ea;
+        for (const char* key : {"diameter", "fill_factor", "modulus_gpa"})
+            if (const Entry* e = s.find(key))
+                s.fail_at_key(*e, std::string("give either axial_stiffness or diameter, fill_factor and "
+                                              "modulus_gpa, not both ('") + key + "' would be ignored)");
+    } else {
+        r.diameter = s.quantity("diameter", Dimension::length);
+        s.check_positive("diameter", r.diameter, Dimension::length);
+        s.check_plausible("diameter", r.diameter, Dimension::length, 1e-3, 0.2, "rope diameter");
+        r.fill_factor = s.quantity("fill_factor", Dimension::ratio);
+        s.check_range("fill_factor", r.fill_factor, Dimension::ratio, 0, false, 1, true,
+                      "the metallic area over d^2, about 0.5 to 0.6 for steel wire rope");
+        const Entry& e = s.require("modulus_gpa");
+        const double gpa = s.number(e, "100");
+        if (!(gpa > 0 && gpa <= 300)) s.fail_at(e, "must be more than 0 and at most 300 (GPa), got " + number_text(gpa));
+        r.modulus = gpa * 1e9;
+    }
+    r.lead_length = s.optional_quantity("lead_length", Dimension::length).value_or(0.0);
+    s.check_range("lead_length", r.lead_length, Dimension::length, 0, true, max_rope_length, true);
+    if (const auto ea = s.optional_quantity("rigging_axial_stiffness", Dimension::force)) {
+        s.check_positive("rigging_axial_stiffness", *ea, Dimension::force);
+        r.rigging_axial_stiffness = *ea;
+    }
+    r.damping_ratio = s.optional_quantity("damping_ratio", Dimension::ratio).value_or(0.0);
+    s.check_range("damping_ratio", r.damping_ratio, Dimension::ratio, 0, true, 1, true);
+    return r;
+}
+
 // ---------------------------------------------------------------- whole job
 
 Job build_job(const Context& ctx, const YAML::Node& root) {
@@ -664,7 +717,26 @@ Job build_job(const Context& ctx, const YAML::Node& root) {
             limits.fail_at("sling_leg_tension",
                            "this limit is a share of the leg WLL, but rigging.leg_wll is not given");
     }
-    if (const Entry* e = top.find("analysis")) read_analysis(top.section(*e, analysis_keys), job.analysis);
+    if (const Entry* e = top.find("analysis")) {
+        const Section analysis = top.section(*e, analysis_keys);
+        read_analysis(analysis, job.analysis);
+        read_model(analysis, job.analysis);
+    }
+    const Entry* rope = top.find("rope");
+    if (job.analysis.model == SwingModelChoice::elastic) {
+        if (rope == nullptr)
+            fail(ctx, top.mark(), "rope", "the elastic model (analysis.model: elastic) needs the section 'rope'");
+        job.rope = read_rope(top.section(*rope, rope_keys));
+        if (job.load.radius_of_gyration > 0)
+            load.fail_at("radius_of_gyration", "the elastic model takes the load as a point mass; remove this key "
+                                               "or use analysis.model: rigid");
+        if (job.load.initial_angle != 0 || job.load.initial_rate != 0)
+            load.fail_at(job.load.initial_angle != 0 ? "initial_angle" : "initial_rate",
+                         "the elastic model starts hanging at rest; remove this key or use analysis.model: rigid");
+    } else if (rope != nullptr) {
+        top.fail_at_key(*rope, "the section 'rope' is read only by the elastic model; set analysis.model: elastic "
+                               "or remove it");
+    }
 
     const double total = job.hook_block.mass + job.load.mass;
     if (total > max_total_mass)

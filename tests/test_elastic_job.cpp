@@ -1,0 +1,105 @@
+// The elastic model through the job file, the factory and the checks.
+#include <catch2/catch.hpp>
+
+#include <cmath>
+#include <string>
+
+#include "plumb/assessment.hpp"
+#include "plumb/errors.hpp"
+#include "plumb/job.hpp"
+#include "plumb/job_file.hpp"
+#include "plumb/model.hpp"
+
+namespace {
+
+using plumb::parse_job;
+
+// An invented lift: 5 t under a 2-fall hook, a short travel move.
+const std::string base_job = R"(job:
+  title: "Elastic wiring test"
+motion:
+  moves:
+    - distance: 4 m
+      top_speed: 0.5 m/s
+      acceleration: 0.25 m/s^2
+hoist:
+  rope_length: 8 m
+  parts_of_line: 2
+  rated_load: 10 t
+hook_block:
+  mass: 200 kg
+rigging:
+  length: 2 m
+load:
+  mass: 5 t
+limits:
+  load_angle: 10 deg
+analysis:
+  duration_after: 10 s
+)";
+
+const std::string elastic_keys = R"(  model: elastic
+rope:
+  diameter: 16 mm
+  fill_factor: 0.55
+  modulus_gpa: 100
+  lead_length: 10 m
+  damping_ratio: 2 %
+)";
+
+std::string elastic_job() { return base_job + elastic_keys; }
+
+}  // namespace
+
+TEST_CASE("analysis.model elastic selects the elastic model and BDF by default") {
+    const plumb::Job job = parse_job(elastic_job(), "job.yaml");
+    CHECK(job.analysis.model == plumb::SwingModelChoice::elastic);
+    CHECK(job.analysis.integrator == plumb::IntegratorMethod::cvode_bdf);
+    REQUIRE(job.rope);
+    CHECK(job.rope->modulus == Approx(100e9));
+    CHECK(job.rope->diameter == Approx(0.016));
+    CHECK(job.rope->damping_ratio == Approx(0.02));
+    const auto model = plumb::make_swing_model(job);
+    const plumb::ModelDescription d = model->describe();
+    CHECK(d.name == "elastic model");
+    CHECK_FALSE(d.modes);
+    CHECK(d.validity == plumb::ValidityRule::always_valid);
+    CHECK(d.static_loads.hoist_rope_tension == Approx(5200 * 9.80665));
+}
+
+TEST_CASE("a job without analysis.model runs the rigid model") {
+    const plumb::Job job = parse_job(base_job, "job.yaml");
+    CHECK(job.analysis.model == plumb::SwingModelChoice::rigid);
+    CHECK(plumb::make_swing_model(job)->describe().name == "rigid model");
+}
+
+TEST_CASE("the rope section with the rigid model is an input error naming the key") {
+    const std::string text = base_job + "rope:\n  axial_stiffness: 10000 kN\n";
+    try {
+        parse_job(text, "job.yaml");
+        FAIL("no error");
+    } catch (const plumb::InputError& e) {
+        CHECK(std::string(e.what()).find("rope") != std::string::npos);
+        CHECK(std::string(e.what()).find("analysis.model: elastic") != std::string::npos);
+    }
+}
+
+TEST_CASE("the elastic model without a rope section is an input error") {
+    CHECK_THROWS_AS(parse_job(base_job + "  model: elastic\n", "job.yaml"), plumb::InputError);
+}
+
+TEST_CASE("an elastic job is checked end to end with a verdict") {
+    const plumb::LiftAssessment a = plumb::assess_lift(parse_job(elastic_job(), "job.yaml"), false);
+    CHECK(a.prediction.model.name == "elastic model");
+    CHECK(a.overall == plumb::Verdict::pass);
+    // A short gentle move: 0.25 m/s^2 over g leans the load atan(0.25 / g),
+    // about 1.46 deg, at steady acceleration. Each of the move's four steps of
+    // acceleration moves the pendulum's equilibrium by one lean and so grows
+    // the swing amplitude about it by at most one lean (undamped step
+    // response): the angle stays within four leans.
+    const double lean = std::atan(0.25 / 9.80665);
+    const double peak_angle = a.prediction.peak(plumb::Quantity::load_angle).value;
+    CHECK(peak_angle > lean);
+    CHECK(peak_angle < 4 * lean);
+    CHECK(a.prediction.simulation.stats.steps > 0);
+}
