@@ -103,3 +103,60 @@ TEST_CASE("an elastic job is checked end to end with a verdict") {
     CHECK(peak_angle < 4 * lean);
     CHECK(a.prediction.simulation.stats.steps > 0);
 }
+
+namespace {
+
+// The base job with travel along y and hoisting in 2 m at the same time.
+std::string two_axis_hoisting_job() {
+    std::string text = elastic_job();
+    const std::string after = "      acceleration: 0.25 m/s^2\n";
+    const std::string channels = R"(  y_moves:
+    - distance: 3 m
+      top_speed: 0.4 m/s
+      acceleration: 0.2 m/s^2
+  hoist_moves:
+    - distance: -2 m
+      top_speed: 0.2 m/s
+      acceleration: 0.2 m/s^2
+)";
+    text.insert(text.find(after) + after.size(), channels);
+    return text;
+}
+
+}  // namespace
+
+TEST_CASE("travel along y and hoisting with the rigid model are input errors naming the key") {
+    std::string text = two_axis_hoisting_job();
+    text.replace(text.find("  model: elastic\n"), 17, "");
+    text = text.substr(0, text.find("rope:\n"));
+    try {
+        parse_job(text, "job.yaml");
+        FAIL("no error");
+    } catch (const plumb::InputError& e) {
+        CHECK(std::string(e.what()).find("y_moves") != std::string::npos);
+        CHECK(std::string(e.what()).find("elastic") != std::string::npos);
+    }
+}
+
+TEST_CASE("a two-axis move with hoisting ends with the support and hook where the moves put them") {
+    const plumb::Job job = parse_job(two_axis_hoisting_job(), "job.yaml");
+    plumb::Job settled = job;
+    settled.analysis.duration_after = 30.0;
+    const plumb::LiftAssessment a = plumb::assess_lift(settled, true);
+    REQUIRE_FALSE(a.prediction.simulation.trace.empty());
+    const plumb::Observation& last = a.prediction.simulation.trace.back();
+    CHECK(last.support.position.x() == Approx(4.0).margin(1e-9));
+    CHECK(last.support.position.y() == Approx(3.0).margin(1e-9));
+    CHECK(last.support.rope_length == Approx(6.0).margin(1e-9));
+    // Hanging below the support at the end: the fall is 8 m - 2 m hoisted in,
+    // stretched by (m1 + m2) g / k with k = n^2 EA / (n L + lead) (docs/model.md);
+    // EA = E C d^2 = 100 GPa * 0.55 * (16 mm)^2.
+    const double ea = 100e9 * 0.55 * 0.016 * 0.016;
+    const double k = 4 * ea / (2 * 6.0 + 10.0);
+    const double stretch = 5200 * 9.80665 / k;
+    // The swing left over (a few degrees, undamped) tilts the rope, so the
+    // rope's length is compared, not the hook's depth; its pull varies with
+    // the swing by a few tenths of a per cent, hence 2 mm (a tenth of the stretch).
+    CHECK(last.hook_block.norm() == Approx(6.0 + stretch).margin(0.002));
+    CHECK(std::hypot(last.load_cg.x(), last.load_cg.y()) < 0.5);
+}

@@ -35,6 +35,10 @@ struct SupportMotionSpec {
     std::vector<Move> moves;                 // either moves ...
     std::vector<SpeedSample> speed_history;  // ... or a speed history (exactly one is non-empty)
     std::string speed_history_file;          // where the history came from, for the report
+    // Elastic model only: travel along y, and the hoist (distance > 0 pays
+    // rope out: the unstretched fall length grows by it). Empty: at rest.
+    std::vector<Move> y_moves;
+    std::vector<Move> hoist_moves;
 };
 
 struct Hoist {

@@ -49,7 +49,7 @@ using KeyList = std::vector<std::string_view>;
 const KeyList top_keys{"job", "motion", "hoist", "hook_block", "rigging",
                        "load", "environment", "limits", "analysis", "rope"};
 const KeyList job_keys{"title", "reference"};
-const KeyList motion_keys{"moves", "speed_history"};
+const KeyList motion_keys{"moves", "speed_history", "y_moves", "hoist_moves"};
 const KeyList move_keys{"distance", "top_speed", "acceleration", "deceleration", "jerk", "pause_before"};
 const KeyList hoist_keys{"rope_length", "parts_of_line", "rated_load", "rope_wll",
                          "rope_minimum_breaking_load"};
@@ -366,6 +366,38 @@ void read_speed_history(const Section& s, const Entry& e, SupportMotionSpec& mot
     motion.speed_history_file = printable(shown);  // the job's folder may have any bytes in its name
 }
 
+// A list of moves (motion.moves, y_moves, hoist_moves), each checked.
+std::vector<Move> read_move_list(const Section& s, const Entry& list) {
+    const Entry* moves = &list;
+    if (!moves->value.IsSequence())
+        s.fail_at(*moves, "expected a list of moves (each starting with '- distance:'), got " +
+                              describe(moves->value));
+    if (moves->value.size() == 0) s.fail_at(*moves, "the list of moves is empty; give at least one move");
+    if (moves->value.size() > max_moves)
+        s.fail_at(*moves, "more than " + std::to_string(max_moves) + " moves (" +
+                              std::to_string(moves->value.size()) + "); plan the lift's moves, not a shift");
+    std::vector<Move> result;
+    std::size_t index = 0;
+    for (const YAML::Node& item : moves->value) {
+        ++index;  // 1-based: moves[1] is the first move
+        const std::string path = moves->path + "[" + std::to_string(index) + "]";
+        const YAML::Mark mark = item.Mark().is_null() ? moves->mark() : item.Mark();
+        result.push_back(read_move(Section(s.ctx(), item, path, mark, move_keys)));
+    }
+    // Upper bound of the moves' duration: coast the whole way plus both speed changes.
+    double duration = 0;
+    for (const Move& m : result) {
+        const double ramps = m.jerk ? m.acceleration / *m.jerk + m.deceleration / *m.jerk : 0.0;
+        duration += m.pause_before + std::fabs(m.distance) / m.top_speed + m.top_speed / (2 * m.acceleration) +
+                    m.top_speed / (2 * m.deceleration) + ramps;
+    }
+    if (duration > max_motion_duration)
+        s.fail_at(*moves, "implausible motion: the moves last about " + show(duration, Dimension::time) +
+                              " (more than " + show(max_motion_duration, Dimension::time) +
+                              "); plan the lift's moves, not a shift");
+    return result;
+}
+
 void read_motion(const Section& s, Job& job) {
     const Entry* moves = s.find("moves");
     const Entry* history = s.find("speed_history");
@@ -375,35 +407,12 @@ void read_motion(const Section& s, Job& job) {
         fail(s.ctx(), s.mark(), s.path(),
              "no support motion: give moves (a list of travel moves) or speed_history (a CSV file)");
 
-    if (history != nullptr) {
-        read_speed_history(s, *history, job.motion);
-        return;
-    }
-    if (!moves->value.IsSequence())
-        s.fail_at(*moves, "expected a list of moves (each starting with '- distance:'), got " +
-                              describe(moves->value));
-    if (moves->value.size() == 0) s.fail_at(*moves, "the list of moves is empty; give at least one move");
-    if (moves->value.size() > max_moves)
-        s.fail_at(*moves, "more than " + std::to_string(max_moves) + " moves (" +
-                              std::to_string(moves->value.size()) + "); plan the lift's moves, not a shift");
-    std::size_t index = 0;
-    for (const YAML::Node& item : moves->value) {
-        ++index;  // 1-based: moves[1] is the first move
-        const std::string path = moves->path + "[" + std::to_string(index) + "]";
-        const YAML::Mark mark = item.Mark().is_null() ? moves->mark() : item.Mark();
-        job.motion.moves.push_back(read_move(Section(s.ctx(), item, path, mark, move_keys)));
-    }
-    // Upper bound of the moves' duration: coast the whole way plus both speed changes.
-    double duration = 0;
-    for (const Move& m : job.motion.moves) {
-        const double ramps = m.jerk ? m.acceleration / *m.jerk + m.deceleration / *m.jerk : 0.0;
-        duration += m.pause_before + std::fabs(m.distance) / m.top_speed + m.top_speed / (2 * m.acceleration) +
-                    m.top_speed / (2 * m.deceleration) + ramps;
-    }
-    if (duration > max_motion_duration)
-        s.fail_at(*moves, "implausible motion: the moves last about " + show(duration, Dimension::time) +
-                              " (more than " + show(max_motion_duration, Dimension::time) +
-                              "); plan the lift's moves, not a shift");
+    // The elastic model's further channels: travel along y and the hoist
+    // (distance > 0 pays rope out, lowering the hook).
+    if (const Entry* e = s.find("y_moves")) job.motion.y_moves = read_move_list(s, *e);
+    if (const Entry* e = s.find("hoist_moves")) job.motion.hoist_moves = read_move_list(s, *e);
+    if (history != nullptr) read_speed_history(s, *history, job.motion);
+    else job.motion.moves = read_move_list(s, *moves);
 }
 
 // ---------------------------------------------------------------- hoist and hook
@@ -689,6 +698,26 @@ RopeElasticity read_rope(const Section& s) {
     return r;
 }
 
+// Travel along y and hoisting are the elastic model's; the hoist never takes
+// the rope shorter than a plausible length.
+void check_channels(const Section& motion, const Job& job) {
+    for (const char* key : {"y_moves", "hoist_moves"}) {
+        const Entry* e = motion.find(key);
+        if (e != nullptr && job.analysis.model != SwingModelChoice::elastic)
+            motion.fail_at_key(*e, std::string("'") + key + "' needs the elastic model (analysis.model: elastic); "
+                                   "the rigid model is planar with a fixed rope length");
+    }
+    double rope_length = job.hoist.rope_length;
+    for (const Move& m : job.motion.hoist_moves) {
+        rope_length += m.distance;
+        if (rope_length < min_rope_length || rope_length > max_rope_length)
+            motion.fail_at("hoist_moves", "the hoist moves take the rope length to " +
+                                              show(rope_length, Dimension::length) + ", outside " +
+                                              show(min_rope_length, Dimension::length) + " to " +
+                                              show(max_rope_length, Dimension::length));
+    }
+}
+
 // ---------------------------------------------------------------- whole job
 
 Job build_job(const Context& ctx, const YAML::Node& root) {
@@ -703,7 +732,8 @@ Job build_job(const Context& ctx, const YAML::Node& root) {
     Job job;
     job.source_file = ctx.file;  // printable, so that JSON and the terminal can show it
     read_job(required("job", job_keys), job);
-    read_motion(required("motion", motion_keys), job);
+    const Section motion = required("motion", motion_keys);
+    read_motion(motion, job);
     read_hoist(required("hoist", hoist_keys), job.hoist);
     read_hook_block(required("hook_block", hook_block_keys), job.hook_block);
     read_rigging(required("rigging", rigging_keys), job.rigging);
@@ -737,6 +767,7 @@ Job build_job(const Context& ctx, const YAML::Node& root) {
         top.fail_at_key(*rope, "the section 'rope' is read only by the elastic model; set analysis.model: elastic "
                                "or remove it");
     }
+    check_channels(motion, job);
 
     const double total = job.hook_block.mass + job.load.mass;
     if (total > max_total_mass)

@@ -119,8 +119,11 @@ private:
 }  // namespace
 
 std::unique_ptr<SwingModel> make_elastic_swing_model(const Job& job) {
-    SupportPath path(SupportMotion::from_spec(job.motion), SupportMotion::at_rest(), SupportMotion::at_rest(),
-                     job.hoist.rope_length);
+    auto channel = [](const std::vector<Move>& moves) {
+        return moves.empty() ? SupportMotion::at_rest() : SupportMotion::from_moves(moves);
+    };
+    SupportPath path(SupportMotion::from_spec(job.motion), channel(job.motion.y_moves),
+                     channel(job.motion.hoist_moves), job.hoist.rope_length);
     return std::make_unique<ElasticSwingModel>(parameters_from_job(job), std::move(path));
 }
 
