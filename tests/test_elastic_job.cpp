@@ -160,3 +160,32 @@ TEST_CASE("a two-axis move with hoisting ends with the support and hook where th
     CHECK(last.hook_block.norm() == Approx(6.0 + stretch).margin(0.002));
     CHECK(std::hypot(last.load_cg.x(), last.load_cg.y()) < 0.5);
 }
+
+TEST_CASE("a steady wind leans the rigging to atan of drag over weight on average") {
+    std::string text = elastic_job();
+    // A 1 mm creep of the support: the job needs a move, the wind does the work.
+    text.replace(text.find("distance: 4 m"), 13, "distance: 1 mm");
+    text.replace(text.find("duration_after: 10 s"), 20, "duration_after: 60 s");
+    text += "environment:\n  wind_speed: 10 m/s\n";
+    const plumb::LiftAssessment a = plumb::assess_lift(parse_job(text, "job.yaml"), true);
+    // Default drag for an unknown shape: 1 m^2 per tonne, Cd 1 (docs/model.md,
+    // common practice); F = 1/2 rho Cd A v^2 with rho 1.25 kg/m^3. Steady
+    // equilibrium of the load on the rigging: tan(angle) = F / (m g) (statics).
+    const double drag = 0.5 * 1.25 * 1.0 * 5.0 * 10.0 * 10.0;
+    const double expected = std::atan(drag / (5000 * 9.80665));
+    double sum = 0;
+    for (const plumb::Observation& o : a.prediction.simulation.trace) sum += o.member(plumb::MemberId::rigging).angle();
+    const double mean = sum / static_cast<double>(a.prediction.simulation.trace.size());
+    // The wind starts at once, so the load swings about its lean; the mean of
+    // that swing over about ten periods is within a few per cent of the lean.
+    CHECK(mean == Approx(expected).epsilon(0.1));
+}
+
+TEST_CASE("wind with the rigid model is an input error naming the key") {
+    try {
+        parse_job(base_job + "environment:\n  wind_speed: 10 m/s\n", "job.yaml");
+        FAIL("no error");
+    } catch (const plumb::InputError& e) {
+        CHECK(std::string(e.what()).find("wind_speed") != std::string::npos);
+    }
+}

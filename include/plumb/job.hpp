@@ -70,6 +70,12 @@ struct Load {
 
 struct Environment {
     double gravity = 9.80665;  // m/s^2
+    // Elastic model only: steady wind plus one 1 - cos gust (elastic_model.hpp, WindData).
+    double wind_speed = 0;      // m/s
+    double wind_direction = 0;  // rad from +x toward +y, the direction the wind blows to
+    double gust_peak = 0;       // m/s
+    double gust_start = 0;      // s
+    double gust_duration = 0;   // s; 0: no gust
 };
 
 // Any subset of limits; a missing limit is not checked.

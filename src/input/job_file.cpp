@@ -57,7 +57,8 @@ const KeyList hook_block_keys{"mass"};
 const KeyList rigging_keys{"length", "legs", "leg_angle_from_horizontal", "leg_angle_from_vertical",
                            "leg_length", "spread", "legs_bearing", "leg_wll"};
 const KeyList load_keys{"mass", "radius_of_gyration", "initial_angle", "initial_rate"};
-const KeyList environment_keys{"gravity"};
+const KeyList environment_keys{"gravity", "wind_speed", "wind_direction", "gust_peak", "gust_start",
+                               "gust_duration"};
 const KeyList limits_keys{"hook_rope_angle", "load_angle", "load_offset", "residual_swing",
                           "rope_tension", "sling_leg_tension", "dynamic_factor", "caution_at"};
 const KeyList analysis_keys{"duration_after", "output_step", "relative_tolerance",
@@ -556,6 +557,16 @@ void read_load(const Section& s, Load& l) {
 
 void read_environment(const Section& s, Environment& env) {
     env.gravity = s.optional_quantity("gravity", Dimension::acceleration).value_or(standard_gravity);
+    // Wind (elastic model only; check_wind refuses it with the rigid model).
+    env.wind_speed = s.optional_quantity("wind_speed", Dimension::speed).value_or(0.0);
+    s.check_range("wind_speed", env.wind_speed, Dimension::speed, 0, true, 60, true);
+    env.wind_direction = s.optional_quantity("wind_direction", Dimension::angle).value_or(0.0);
+    env.gust_peak = s.optional_quantity("gust_peak", Dimension::speed).value_or(0.0);
+    s.check_range("gust_peak", env.gust_peak, Dimension::speed, 0, true, 60, true);
+    env.gust_start = s.optional_quantity("gust_start", Dimension::time).value_or(0.0);
+    s.check_range("gust_start", env.gust_start, Dimension::time, 0, true, max_motion_duration, true);
+    env.gust_duration = s.optional_quantity("gust_duration", Dimension::time).value_or(0.0);
+    s.check_range("gust_duration", env.gust_duration, Dimension::time, 0, true, 600, true);
     s.check_range("gravity", env.gravity, Dimension::acceleration, 0, false, max_gravity, true);
     s.check_plausible("gravity", env.gravity, Dimension::acceleration, min_gravity, max_gravity, "gravity");
 }
@@ -739,7 +750,11 @@ Job build_job(const Context& ctx, const YAML::Node& root) {
     read_rigging(required("rigging", rigging_keys), job.rigging);
     const Section load = required("load", load_keys);
     read_load(load, job.load);
-    if (const Entry* e = top.find("environment")) read_environment(top.section(*e, environment_keys), job.environment);
+    std::optional<Section> environment;
+    if (const Entry* e = top.find("environment")) {
+        environment.emplace(top.section(*e, environment_keys));
+        read_environment(*environment, job.environment);
+    }
     if (const Entry* e = top.find("limits")) {
         const Section limits = top.section(*e, limits_keys);
         read_limits(limits, job.limits);
@@ -768,6 +783,12 @@ Job build_job(const Context& ctx, const YAML::Node& root) {
                                "or remove it");
     }
     check_channels(motion, job);
+    if (environment && job.analysis.model != SwingModelChoice::elastic) {
+        for (const char* key : {"wind_speed", "wind_direction", "gust_peak", "gust_start", "gust_duration"})
+            if (const Entry* e = environment->find(key))
+                environment->fail_at_key(*e, std::string("'") + key + "' needs the elastic model (analysis.model: "
+                                             "elastic); the rigid model has no wind");
+    }
 
     const double total = job.hook_block.mass + job.load.mass;
     if (total > max_total_mass)

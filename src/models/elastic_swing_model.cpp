@@ -36,6 +36,12 @@ ElasticParameters parameters_from_job(const Job& job) {
     p.damping_ratio = rope.damping_ratio;
     p.hook_block_drag = DragData::default_for_mass(job.hook_block.mass);
     p.load_drag = DragData::default_for_mass(job.load.mass);
+    const Environment& env = job.environment;
+    p.wind.steady_speed = env.wind_speed;
+    p.wind.direction = env.wind_direction;
+    p.wind.gust_peak = env.gust_peak;
+    p.wind.gust_start = env.gust_start;
+    p.wind.gust_duration = env.gust_duration;
     return p;
 }
 
