@@ -43,6 +43,10 @@ struct SupportMotionSpec {
     // free swing from the load's initial angle and rate.
     bool fixed_support = false;
     std::string speed_history_sha256;        // digest of the file's bytes, for the report
+    // Elastic model only: travel along y, and the hoist (distance > 0 pays
+    // rope out: the unstretched fall length grows by it). Empty: at rest.
+    std::vector<Move> y_moves;
+    std::vector<Move> hoist_moves;
 };
 
 // What the hoist's rated load covers. gross: the rating is compared with the
@@ -88,6 +92,12 @@ struct Load {
 
 struct Environment {
     double gravity = 9.80665;  // m/s^2
+    // Elastic model only: steady wind plus one 1 - cos gust (elastic_model.hpp, WindData).
+    double wind_speed = 0;      // m/s
+    double wind_direction = 0;  // rad from +x toward +y, the direction the wind blows to
+    double gust_peak = 0;       // m/s
+    double gust_start = 0;      // s
+    double gust_duration = 0;   // s; 0: no gust
 };
 
 // Any subset of limits; a missing limit is not checked.
@@ -109,12 +119,32 @@ enum class IntegratorMethod {
     cvode_bdf,    // SUNDIALS CVODE, BDF (stiff)
 };
 
+// Which swing model a job runs (analysis.model).
+enum class SwingModelChoice {
+    rigid,    // planar, rigid ropes: the fast path (docs/model.md)
+    elastic,  // 3-D, elastic tension-only ropes (docs/model.md, "Elastic model")
+};
+
+// The rope data only the elastic model reads (the job file's section `rope`).
+struct RopeElasticity {
+    // Hoist rope, one fall: EA = axial_stiffness if given, else modulus * fill_factor * diameter^2.
+    double diameter = 0;         // m, nominal
+    double fill_factor = 0;      // metallic area over d^2
+    double modulus = 0;          // Pa, the rope's modulus
+    double axial_stiffness = 0;  // N, EA of one fall; 0: from d, C, E
+    double lead_length = 0;      // m, rope outside the falls that carries the line pull
+    // Rigging, per leg; 0: the hoist rope's EA.
+    double rigging_axial_stiffness = 0;  // N
+    double damping_ratio = 0;    // of each member's axial mode
+};
+
 struct AnalysisSettings {
     std::optional<double> duration_after;  // s of free swing after the last move; none: automatic
     double output_step = 0.05;             // s, spacing of the CSV time series
     double relative_tolerance = 1e-8;
     double absolute_tolerance = 1e-10;     // rad and rad/s
-    IntegratorMethod integrator = IntegratorMethod::runge_kutta;
+    IntegratorMethod integrator = IntegratorMethod::runge_kutta;  // elastic model: cvode_bdf unless given
+    SwingModelChoice model = SwingModelChoice::rigid;
 };
 
 struct Job {
@@ -131,6 +161,7 @@ struct Job {
     Environment environment;
     Limits limits;
     AnalysisSettings analysis;
+    std::optional<RopeElasticity> rope;  // the elastic model's rope data (required by it)
     // Where each key was given in the job file ("hook_block.mass" -> file,
     // line, column, key path), so that a check after the parser can point at
     // the input it refuses. Empty for a Job built in code.

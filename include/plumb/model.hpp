@@ -19,6 +19,11 @@
 
 namespace plumb {
 
+// Hook block and load hanging at rest: the rope carries both, the rigging the load.
+inline StaticLoads hanging_static_loads(double hook_block_mass, double load_mass, double gravity) {
+    return {(hook_block_mass + load_mass) * gravity, load_mass * gravity};
+}
+
 // What ends the validity of a model's predictions, if anything.
 enum class ValidityRule {
     always_valid,         // nothing in the run ends it (e.g. slack is a state the model handles)

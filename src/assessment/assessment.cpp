@@ -148,6 +148,12 @@ CheckResult taut_check(const LiftPrediction& p, std::string name, std::string de
         c.note = "goes slack at t = " + format_time(*slack_time) + " s";
         if (p.model.validity == ValidityRule::slack_ends_validity) {
             c.note += "; the " + p.model.name + " is not valid past that time (snatch loads are not predicted)";
+        } else {
+            // The model follows slack and re-tightening: the snatch load is in
+            // the peak tensions it reports. A slack rope is still a hazard (the
+            // rope can jump a sheave, the load drops into it), so it is a CAUTION.
+            c.verdict = Verdict::caution;
+            c.note += "; the " + p.model.name + " follows the slack rope and the snatch as it re-tightens (see the peak tensions)";
         }
     }
     return c;
@@ -215,7 +221,7 @@ LiftPrediction predict_lift(const Job& job, const SwingModel& model, const Model
                             const std::vector<WatchLevel>& watch, double output_step) {
     LiftPrediction p;
     p.model = description;
-    p.end_of_motion = model.motion().end_of_motion();
+    p.end_of_motion = model.trajectory().end_of_motion();  // every channel, not only x
     p.end_time = p.end_of_motion + job.analysis.duration_after.value_or(automatic_duration_after(p.model.modes));
     check_work_budget(job, p.model.modes, p.end_time, output_step);
 

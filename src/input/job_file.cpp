@@ -48,10 +48,10 @@ constexpr double inf = std::numeric_limits<double>::infinity();
 using KeyList = std::vector<std::string_view>;
 
 const KeyList top_keys{"job", "motion", "hoist", "hook_block", "rigging",
-                       "load", "environment", "limits", "analysis", "units",
+                       "load", "environment", "limits", "analysis", "units", "rope",
                        "scatter"};  // uncertain inputs: read by plumb scatter only (docs/scatter.md)
 const KeyList job_keys{"title", "reference"};
-const KeyList motion_keys{"moves", "speed_history", "fixed_support", "emergency_deceleration"};
+const KeyList motion_keys{"moves", "speed_history", "fixed_support", "emergency_deceleration", "y_moves", "hoist_moves"};
 const KeyList move_keys{"distance", "top_speed", "acceleration", "deceleration", "jerk", "pause_before"};
 const KeyList hoist_keys{"rope_length", "parts_of_line", "rated_load", "rope_wll",
                          "rope_minimum_breaking_load", "rated_load_basis", "sheave_efficiency"};
@@ -59,12 +59,15 @@ const KeyList hook_block_keys{"mass"};
 const KeyList rigging_keys{"length", "legs", "leg_angle_from_horizontal", "leg_angle_from_vertical",
                            "leg_length", "spread", "legs_bearing", "leg_wll"};
 const KeyList load_keys{"mass", "radius_of_gyration", "initial_angle", "initial_rate"};
-const KeyList environment_keys{"gravity"};
+const KeyList environment_keys{"gravity", "wind_speed", "wind_direction", "gust_peak", "gust_start",
+                               "gust_duration"};
 const KeyList limits_keys{"hook_rope_angle", "load_angle", "load_offset", "residual_swing",
                           "rope_tension", "sling_leg_tension", "dynamic_factor", "caution_at",
                           "rope_design_factor"};
 const KeyList analysis_keys{"duration_after", "output_step", "relative_tolerance",
-                            "absolute_tolerance", "integrator"};
+                            "absolute_tolerance", "integrator", "model"};
+const KeyList rope_keys{"diameter", "fill_factor", "modulus_gpa", "axial_stiffness", "lead_length",
+                        "rigging_axial_stiffness", "damping_ratio"};
 
 struct SectionKeys {
     std::string_view name;  // as a user would look for it
@@ -78,7 +81,7 @@ const std::vector<SectionKeys> all_sections{
     {"hoist", &hoist_keys},             {"hook_block", &hook_block_keys},
     {"rigging", &rigging_keys},         {"load", &load_keys},
     {"environment", &environment_keys}, {"limits", &limits_keys},
-    {"analysis", &analysis_keys},
+    {"analysis", &analysis_keys},       {"rope", &rope_keys},
 };
 
 // ---------------------------------------------------------------- text
@@ -403,6 +406,38 @@ void read_speed_history(const Section& s, const Entry& e, SupportMotionSpec& mot
     motion.speed_history_file = printable(shown);  // the job's folder may have any bytes in its name
 }
 
+// A list of moves (motion.moves, y_moves, hoist_moves), each checked.
+std::vector<Move> read_move_list(const Section& s, const Entry& list) {
+    const Entry* moves = &list;
+    if (!moves->value.IsSequence())
+        s.fail_at(*moves, "expected a list of moves (each starting with '- distance:'), got " +
+                              describe(moves->value));
+    if (moves->value.size() == 0) s.fail_at(*moves, "the list of moves is empty; give at least one move");
+    if (moves->value.size() > max_moves)
+        s.fail_at(*moves, "more than " + std::to_string(max_moves) + " moves (" +
+                              std::to_string(moves->value.size()) + "); plan the lift's moves, not a shift");
+    std::vector<Move> result;
+    std::size_t index = 0;
+    for (const YAML::Node& item : moves->value) {
+        ++index;  // 1-based: moves[1] is the first move
+        const std::string path = moves->path + "[" + std::to_string(index) + "]";
+        const YAML::Mark mark = item.Mark().is_null() ? moves->mark() : item.Mark();
+        result.push_back(read_move(Section(s.ctx(), item, path, mark, move_keys)));
+    }
+    // Upper bound of the moves' duration: coast the whole way plus both speed changes.
+    double duration = 0;
+    for (const Move& m : result) {
+        const double ramps = m.jerk ? m.acceleration / *m.jerk + m.deceleration / *m.jerk : 0.0;
+        duration += m.pause_before + std::fabs(m.distance) / m.top_speed + m.top_speed / (2 * m.acceleration) +
+                    m.top_speed / (2 * m.deceleration) + ramps;
+    }
+    if (duration > max_motion_duration)
+        s.fail_at(*moves, "implausible motion: the moves last about " + show(duration, Dimension::time) +
+                              " (more than " + show(max_motion_duration, Dimension::time) +
+                              "); plan the lift's moves, not a shift");
+    return result;
+}
+
 void read_motion(const Section& s, Job& job) {
     const Entry* moves = s.find("moves");
     const Entry* history = s.find("speed_history");
@@ -428,35 +463,12 @@ void read_motion(const Section& s, Job& job) {
                           max_acceleration, "emergency deceleration");
         job.motion.emergency_deceleration = *stop;
     }
-    if (history != nullptr) {
-        read_speed_history(s, *history, job.motion);
-        return;
-    }
-    if (!moves->value.IsSequence())
-        s.fail_at(*moves, "expected a list of moves (each starting with '- distance:'), got " +
-                              describe(moves->value));
-    if (moves->value.size() == 0) s.fail_at(*moves, "the list of moves is empty; give at least one move");
-    if (moves->value.size() > max_moves)
-        s.fail_at(*moves, "more than " + std::to_string(max_moves) + " moves (" +
-                              std::to_string(moves->value.size()) + "); plan the lift's moves, not a shift");
-    std::size_t index = 0;
-    for (const YAML::Node& item : moves->value) {
-        ++index;  // 1-based: moves[1] is the first move
-        const std::string path = moves->path + "[" + std::to_string(index) + "]";
-        const YAML::Mark mark = item.Mark().is_null() ? moves->mark() : item.Mark();
-        job.motion.moves.push_back(read_move(Section(s.ctx(), item, path, mark, move_keys)));
-    }
-    // Upper bound of the moves' duration: coast the whole way plus both speed changes.
-    double duration = 0;
-    for (const Move& m : job.motion.moves) {
-        const double ramps = m.jerk ? m.acceleration / *m.jerk + m.deceleration / *m.jerk : 0.0;
-        duration += m.pause_before + std::fabs(m.distance) / m.top_speed + m.top_speed / (2 * m.acceleration) +
-                    m.top_speed / (2 * m.deceleration) + ramps;
-    }
-    if (duration > max_motion_duration)
-        s.fail_at(*moves, "implausible motion: the moves last about " + show(duration, Dimension::time) +
-                              " (more than " + show(max_motion_duration, Dimension::time) +
-                              "); plan the lift's moves, not a shift");
+    // The elastic model's further channels: travel along y and the hoist
+    // (distance > 0 pays rope out, lowering the hook).
+    if (const Entry* e = s.find("y_moves")) job.motion.y_moves = read_move_list(s, *e);
+    if (const Entry* e = s.find("hoist_moves")) job.motion.hoist_moves = read_move_list(s, *e);
+    if (history != nullptr) read_speed_history(s, *history, job.motion);
+    else job.motion.moves = read_move_list(s, *moves);
 }
 
 // ---------------------------------------------------------------- hoist and hook
@@ -620,6 +632,16 @@ void read_load(const Section& s, Load& l) {
 
 void read_environment(const Section& s, Environment& env) {
     env.gravity = s.optional_quantity("gravity", Dimension::acceleration).value_or(standard_gravity);
+    // Wind (elastic model only; check_wind refuses it with the rigid model).
+    env.wind_speed = s.optional_quantity("wind_speed", Dimension::speed).value_or(0.0);
+    s.check_range("wind_speed", env.wind_speed, Dimension::speed, 0, true, 60, true);
+    env.wind_direction = s.optional_quantity("wind_direction", Dimension::angle).value_or(0.0);
+    env.gust_peak = s.optional_quantity("gust_peak", Dimension::speed).value_or(0.0);
+    s.check_range("gust_peak", env.gust_peak, Dimension::speed, 0, true, 60, true);
+    env.gust_start = s.optional_quantity("gust_start", Dimension::time).value_or(0.0);
+    s.check_range("gust_start", env.gust_start, Dimension::time, 0, true, max_motion_duration, true);
+    env.gust_duration = s.optional_quantity("gust_duration", Dimension::time).value_or(0.0);
+    s.check_range("gust_duration", env.gust_duration, Dimension::time, 0, true, 600, true);
     s.check_range("gravity", env.gravity, Dimension::acceleration, 0, false, max_gravity, true);
     s.check_plausible("gravity", env.gravity, Dimension::acceleration, min_gravity, max_gravity, "gravity");
 }
@@ -718,6 +740,77 @@ void read_analysis(const Section& s, AnalysisSettings& a) {
     }
 }
 
+// ---------------------------------------------------------------- model and rope
+
+void read_model(const Section& s, AnalysisSettings& a) {
+    const Entry* e = s.find("model");
+    if (e == nullptr) return;
+    const KeyList models{"rigid", "elastic"};
+    const std::string name(trim(s.text(*e)));
+    if (name == "rigid") a.model = SwingModelChoice::rigid;
+    else if (name == "elastic") a.model = SwingModelChoice::elastic;
+    else {
+        std::string problem = "expected one of " + join(models) + ", got '" + name + "'";
+        if (const auto near = nearest(name, models)) problem += "; did you mean '" + std::string(*near) + "'?";
+        s.fail_at(*e, problem);
+    }
+    // The elastic model's axial rope modes are stiff: BDF unless the job says otherwise.
+    if (a.model == SwingModelChoice::elastic && s.find("integrator") == nullptr)
+        a.integrator = IntegratorMethod::cvode_bdf;
+}
+
+RopeElasticity read_rope(const Section& s) {
+    RopeElasticity r;
+    if (const auto ea = s.optional_quantity("axial_stiffness", Dimension::force)) {
+        s.check_positive("axial_stiffness", *ea, Dimension::force);
+        r.axial_stiffness = *ea;
+        for (const char* key : {"diameter", "fill_factor", "modulus_gpa"})
+            if (const Entry* e = s.find(key))
+                s.fail_at_key(*e, std::string("give either axial_stiffness or diameter, fill_factor and "
+                                              "modulus_gpa, not both ('") + key + "' would be ignored)");
+    } else {
+        r.diameter = s.quantity("diameter", Dimension::length);
+        s.check_positive("diameter", r.diameter, Dimension::length);
+        s.check_plausible("diameter", r.diameter, Dimension::length, 1e-3, 0.2, "rope diameter");
+        r.fill_factor = s.quantity("fill_factor", Dimension::ratio);
+        s.check_range("fill_factor", r.fill_factor, Dimension::ratio, 0, false, 1, true,
+                      "the metallic area over d^2, about 0.5 to 0.6 for steel wire rope");
+        const Entry& e = s.require("modulus_gpa");
+        const double gpa = s.number(e, "100");
+        if (!(gpa > 0 && gpa <= 300)) s.fail_at(e, "must be more than 0 and at most 300 (GPa), got " + number_text(gpa));
+        r.modulus = gpa * 1e9;
+    }
+    r.lead_length = s.optional_quantity("lead_length", Dimension::length).value_or(0.0);
+    s.check_range("lead_length", r.lead_length, Dimension::length, 0, true, max_rope_length, true);
+    if (const auto ea = s.optional_quantity("rigging_axial_stiffness", Dimension::force)) {
+        s.check_positive("rigging_axial_stiffness", *ea, Dimension::force);
+        r.rigging_axial_stiffness = *ea;
+    }
+    r.damping_ratio = s.optional_quantity("damping_ratio", Dimension::ratio).value_or(0.0);
+    s.check_range("damping_ratio", r.damping_ratio, Dimension::ratio, 0, true, 1, true);
+    return r;
+}
+
+// Travel along y and hoisting are the elastic model's; the hoist never takes
+// the rope shorter than a plausible length.
+void check_channels(const Section& motion, const Job& job) {
+    for (const char* key : {"y_moves", "hoist_moves"}) {
+        const Entry* e = motion.find(key);
+        if (e != nullptr && job.analysis.model != SwingModelChoice::elastic)
+            motion.fail_at_key(*e, std::string("'") + key + "' needs the elastic model (analysis.model: elastic); "
+                                   "the rigid model is planar with a fixed rope length");
+    }
+    double rope_length = job.hoist.rope_length;
+    for (const Move& m : job.motion.hoist_moves) {
+        rope_length += m.distance;
+        if (rope_length < min_rope_length || rope_length > max_rope_length)
+            motion.fail_at("hoist_moves", "the hoist moves take the rope length to " +
+                                              show(rope_length, Dimension::length) + ", outside " +
+                                              show(min_rope_length, Dimension::length) + " to " +
+                                              show(max_rope_length, Dimension::length));
+    }
+}
+
 // ---------------------------------------------------------------- whole job
 
 JobUnits read_units(const Section& top, const Entry& e) {
@@ -744,13 +837,18 @@ Job build_job(Context ctx, const YAML::Node& root) {
     job.source_file = ctx.file;  // printable, so that JSON and the terminal can show it
     job.declared_units = ctx.units;
     read_job(required("job", job_keys), job);
-    read_motion(required("motion", motion_keys), job);
+    const Section motion = required("motion", motion_keys);
+    read_motion(motion, job);
     read_hoist(required("hoist", hoist_keys), job.hoist);
     read_hook_block(required("hook_block", hook_block_keys), job.hook_block);
     read_rigging(required("rigging", rigging_keys), job.rigging);
     const Section load = required("load", load_keys);
     read_load(load, job.load);
-    if (const Entry* e = top.find("environment")) read_environment(top.section(*e, environment_keys), job.environment);
+    std::optional<Section> environment;
+    if (const Entry* e = top.find("environment")) {
+        environment.emplace(top.section(*e, environment_keys));
+        read_environment(*environment, job.environment);
+    }
     if (const Entry* e = top.find("limits")) {
         const Section limits = top.section(*e, limits_keys);
         read_limits(limits, job.limits);
@@ -763,7 +861,33 @@ Job build_job(Context ctx, const YAML::Node& root) {
             .fail_at("rope_design_factor",
                      "this limit needs the rope's minimum breaking load, but hoist.rope_minimum_breaking_load "
                      "is not given");
-    if (const Entry* e = top.find("analysis")) read_analysis(top.section(*e, analysis_keys), job.analysis);
+    if (const Entry* e = top.find("analysis")) {
+        const Section analysis = top.section(*e, analysis_keys);
+        read_analysis(analysis, job.analysis);
+        read_model(analysis, job.analysis);
+    }
+    const Entry* rope = top.find("rope");
+    if (job.analysis.model == SwingModelChoice::elastic) {
+        if (rope == nullptr)
+            fail(ctx, top.mark(), "rope", "the elastic model (analysis.model: elastic) needs the section 'rope'");
+        job.rope = read_rope(top.section(*rope, rope_keys));
+        if (job.load.radius_of_gyration > 0)
+            load.fail_at("radius_of_gyration", "the elastic model takes the load as a point mass; remove this key "
+                                               "or use analysis.model: rigid");
+        if (job.load.initial_angle != 0 || job.load.initial_rate != 0)
+            load.fail_at(job.load.initial_angle != 0 ? "initial_angle" : "initial_rate",
+                         "the elastic model starts hanging at rest; remove this key or use analysis.model: rigid");
+    } else if (rope != nullptr) {
+        top.fail_at_key(*rope, "the section 'rope' is read only by the elastic model; set analysis.model: elastic "
+                               "or remove it");
+    }
+    check_channels(motion, job);
+    if (environment && job.analysis.model != SwingModelChoice::elastic) {
+        for (const char* key : {"wind_speed", "wind_direction", "gust_peak", "gust_start", "gust_duration"})
+            if (const Entry* e = environment->find(key))
+                environment->fail_at_key(*e, std::string("'") + key + "' needs the elastic model (analysis.model: "
+                                             "elastic); the rigid model has no wind");
+    }
 
     const double total = job.hook_block.mass + job.load.mass;
     if (total > max_total_mass)

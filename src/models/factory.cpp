@@ -2,9 +2,12 @@
 // reaches. Everything past it reads a SwingModel and its ModelDescription.
 #include "plumb/model.hpp"
 
+#include "elastic_swing_model.hpp"
+
 namespace plumb {
 
 std::unique_ptr<SwingModel> make_swing_model(const Job& job) {
+    if (job.analysis.model == SwingModelChoice::elastic) return make_elastic_swing_model(job);
     return std::make_unique<RigidPendulumModel>(RigidPendulumModel::from_job(job));
 }
 

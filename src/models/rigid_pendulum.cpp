@@ -126,8 +126,7 @@ ModelDescription RigidPendulumModel::describe() const {
     ModelDescription d;
     d.name = "rigid model";
     d.modes = linear_modes();
-    d.static_loads.hoist_rope_tension = (p_.hook_block_mass + p_.load_mass) * p_.gravity;
-    d.static_loads.rigging_tension = p_.load_mass * p_.gravity;
+    d.static_loads = hanging_static_loads(p_.hook_block_mass, p_.load_mass, p_.gravity);
     d.assumptions = {
         "Planar motion: the support travels along one axis and the hook block and load swing only "
         "in the vertical plane of that axis.",

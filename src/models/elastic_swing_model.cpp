@@ -1,0 +1,136 @@
+// The elastic model behind the common SwingModel interface: it owns the
+// support path (which ElasticLiftModel only references), starts hanging at
+// rest, and turns the model's own observation into the common Observation
+// (suspension point, hook block, load, members with tensions).
+#include "elastic_swing_model.hpp"
+
+#include "plumb/elastic_model.hpp"
+#include "plumb/errors.hpp"
+
+namespace plumb {
+namespace {
+
+RopeData hoist_rope_data(const RopeElasticity& r) {
+    RopeData d;
+    d.nominal_diameter = r.diameter;
+    d.fill_factor = r.fill_factor;
+    d.modulus = r.modulus;
+    d.axial_stiffness = r.axial_stiffness;
+    return d;
+}
+
+ElasticParameters parameters_from_job(const Job& job) {
+    if (!job.rope) throw InputError("the elastic model (analysis.model: elastic) needs the section 'rope'");
+    const RopeElasticity& rope = *job.rope;
+    ElasticParameters p;
+    p.hook_block_mass = job.hook_block.mass;
+    p.load_mass = job.load.mass;
+    p.gravity = job.environment.gravity;
+    p.hoist_rope = hoist_rope_data(rope);
+    p.parts_of_line = job.hoist.parts_of_line;
+    p.lead_length = rope.lead_length;
+    p.rigging_rope.axial_stiffness =
+        rope.rigging_axial_stiffness > 0 ? rope.rigging_axial_stiffness : p.hoist_rope.ea();
+    p.rigging_legs = job.rigging.legs_bearing;
+    p.rigging_length = job.rigging.length;
+    p.damping_ratio = rope.damping_ratio;
+    p.hook_block_drag = DragData::default_for_mass(job.hook_block.mass);
+    p.load_drag = DragData::default_for_mass(job.load.mass);
+    const Environment& env = job.environment;
+    p.wind.steady_speed = env.wind_speed;
+    p.wind.direction = env.wind_direction;
+    p.wind.gust_peak = env.gust_peak;
+    p.wind.gust_start = env.gust_start;
+    p.wind.gust_duration = env.gust_duration;
+    return p;
+}
+
+Member member_from(const MemberObservation& m, const Eigen::Vector3d& velocity) {
+    Member member = Member::along(m.vector, velocity);
+    member.tension = m.tension;
+    member.resultant = m.tension;  // a rope pulls only along itself
+    return member;
+}
+
+class ElasticSwingModel final : public SwingModel {
+public:
+    ElasticSwingModel(const ElasticParameters& p, SupportPath path)
+        : path_(std::move(path)), model_(p, path_) {}
+    ElasticSwingModel(const ElasticSwingModel&) = delete;  // model_ refers to path_
+    ElasticSwingModel& operator=(const ElasticSwingModel&) = delete;
+
+    std::size_t state_size() const override { return model_.state_size(); }
+    std::vector<StateComponent> state_components() const override { return model_.state_components(); }
+    std::size_t second_order_dof() const override { return model_.second_order_dof(); }
+    void derivatives(double t, const Regime& r, std::span<const double> x, std::span<double> dxdt) const override {
+        model_.derivatives(t, r, x, dxdt);
+    }
+    bool jacobian(double t, const Regime& r, std::span<const double> x, std::span<double> J) const override {
+        return model_.jacobian(t, r, x, J);
+    }
+    std::size_t event_count() const override { return model_.event_count(); }
+    void events(double t, const Regime& r, std::span<const double> x, std::span<double> g) const override {
+        model_.events(t, r, x, g);
+    }
+    EventAction on_event(double t, std::span<const double> x, std::size_t index, int direction,
+                         Regime& r) const override {
+        return model_.on_event(t, x, index, direction, r);
+    }
+    std::uint64_t initial_mode(std::span<const double> x0) const override { return model_.initial_mode(x0); }
+
+    std::vector<double> initial_state() const override { return model_.hanging_at_rest(0); }
+
+    Observation observe(double t, const Regime& r, std::span<const double> x) const override {
+        const ElasticObservation e = model_.observe(t, r, x);
+        Observation o;
+        o.time = t;
+        o.support = path_.at(t, r.interval);
+        o.hook_block = e.hook - e.suspension_point;
+        o.load_cg = e.load - e.suspension_point;
+        o.member(MemberId::hoist_rope) = member_from(e.hoist_rope, e.hook_velocity - e.suspension_velocity);
+        o.member(MemberId::rigging) = member_from(e.rigging, e.load_velocity - e.hook_velocity);
+        return o;
+    }
+
+    const SupportTrajectory& trajectory() const override { return path_; }
+    const SupportMotion& motion() const override { return path_.channel(SupportPath::x); }
+
+    ModelDescription describe() const override {
+        const ElasticParameters& p = model_.parameters();
+        ModelDescription d;
+        d.name = "elastic model";
+        d.static_loads = hanging_static_loads(p.hook_block_mass, p.load_mass, p.gravity);
+        d.assumptions = {
+            "Three-dimensional motion: the hook block and the load are point masses that move in any "
+            "direction under the moving suspension point.",
+            "The hoist rope and the rigging are elastic members that pull but never push; the hook's "
+            "stiffness is n^2 EA / (n L + lead length) for n parts of line of fall length L.",
+            "A slack rope or rigging is a state the model follows (slack onset and re-tightening are "
+            "located events), not the end of its validity; snatch loads are predicted.",
+            "Material damping is a viscous dashpot in each member giving the stated damping ratio to "
+            "its axial mode; sheave friction and rope mass are ignored.",
+            "The load hangs from one point at its centre of gravity: no rotation of the load, no "
+            "sling legs swinging apart.",
+            "The drive follows the planned support motion exactly, whatever the swing.",
+        };
+        d.validity = ValidityRule::always_valid;
+        return d;
+    }
+
+private:
+    SupportPath path_;
+    ElasticLiftModel model_;
+};
+
+}  // namespace
+
+std::unique_ptr<SwingModel> make_elastic_swing_model(const Job& job) {
+    auto channel = [](const std::vector<Move>& moves) {
+        return moves.empty() ? SupportMotion::at_rest() : SupportMotion::from_moves(moves);
+    };
+    SupportPath path(SupportMotion::from_spec(job.motion), channel(job.motion.y_moves),
+                     channel(job.motion.hoist_moves), job.hoist.rope_length);
+    return std::make_unique<ElasticSwingModel>(parameters_from_job(job), std::move(path));
+}
+
+}  // namespace plumb
