@@ -16,6 +16,7 @@
 #include <string>
 #include <vector>
 
+#include "plumb/rigid_pendulum.hpp"
 #include "plumb/errors.hpp"
 #include "plumb/simulation.hpp"
 

@@ -7,6 +7,7 @@
 #include <thread>
 #include <vector>
 
+#include "plumb/rigid_pendulum.hpp"
 #include "plumb/errors.hpp"
 #include "plumb/integrator.hpp"
 #include "plumb/simulation.hpp"

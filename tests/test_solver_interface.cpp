@@ -14,6 +14,7 @@
 #include <utility>
 #include <vector>
 
+#include "plumb/rigid_pendulum.hpp"
 #include "plumb/errors.hpp"
 #include "plumb/integrator.hpp"
 #include "plumb/model.hpp"

@@ -18,6 +18,7 @@
 #include <stdexcept>
 #include <vector>
 
+#include "plumb/rigid_pendulum.hpp"
 #include "plumb/simulation.hpp"
 #include "test_validation_helpers.hpp"
 

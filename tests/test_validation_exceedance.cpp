@@ -10,6 +10,7 @@
 #include <cmath>
 #include <numbers>
 
+#include "plumb/rigid_pendulum.hpp"
 #include "plumb/simulation.hpp"
 
 using namespace plumb;

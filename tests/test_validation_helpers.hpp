@@ -8,6 +8,7 @@
 #include <numbers>
 #include <vector>
 
+#include "plumb/rigid_pendulum.hpp"
 #include "plumb/job.hpp"
 #include "plumb/model.hpp"
 #include "plumb/modes.hpp"

@@ -6,6 +6,7 @@
 #include <cmath>
 #include <vector>
 
+#include "plumb/rigid_pendulum.hpp"
 #include "plumb/modes.hpp"
 #include "plumb/simulation.hpp"
 #include "test_validation_helpers.hpp"

@@ -7,6 +7,7 @@
 #include <cstddef>
 #include <vector>
 
+#include "plumb/rigid_pendulum.hpp"
 #include "plumb/rigging.hpp"
 #include "test_validation_helpers.hpp"
 

@@ -10,6 +10,7 @@
 #include <numbers>
 #include <string>
 
+#include "plumb/rigid_pendulum.hpp"
 #include "plumb/assessment.hpp"
 #include "plumb/job_file.hpp"
 #include "plumb/simulation.hpp"

@@ -1,5 +1,6 @@
 // Advice: every answer is a full simulation of the rigid model with another
 // support motion, checked against the job's own limits by run_checks().
+#include "plumb/rigid_pendulum.hpp"
 #include "plumb/advice.hpp"
 
 #include <algorithm>

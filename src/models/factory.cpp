@@ -1,5 +1,6 @@
 // The model factory: the only code outside src/models that a concrete model
 // reaches. Everything past it reads a SwingModel and its ModelDescription.
+#include "plumb/rigid_pendulum.hpp"
 #include "plumb/model.hpp"
 
 #include "elastic_swing_model.hpp"

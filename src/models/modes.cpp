@@ -1,4 +1,5 @@
 // Linearized swing modes: det(K - w^2 M) = 0 (docs/model.md, "Swing modes").
+#include "plumb/rigid_pendulum.hpp"
 #include "plumb/model.hpp"
 
 #include <Eigen/Dense>

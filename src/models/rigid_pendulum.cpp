@@ -2,6 +2,7 @@
 // docs/model.md; the section names in the comments point there.
 #include <cmath>
 
+#include "plumb/rigid_pendulum.hpp"
 #include "plumb/model.hpp"
 
 namespace plumb {

@@ -6,6 +6,7 @@
 // and only M12 = m2 L1 L2 cos(theta1 - theta2) depends on q.
 #include <cmath>
 
+#include "plumb/rigid_pendulum.hpp"
 #include "plumb/model.hpp"
 
 namespace plumb {

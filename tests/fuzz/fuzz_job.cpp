@@ -25,6 +25,7 @@
 #include <string>
 #include <vector>
 
+#include "plumb/rigid_pendulum.hpp"
 #include "plumb/assessment.hpp"
 #include "plumb/errors.hpp"
 #include "plumb/job_file.hpp"
