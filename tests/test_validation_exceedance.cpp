@@ -2,7 +2,7 @@
 // dense output, not at output samples. Checked on a pendulum under a step of
 // support acceleration a, whose swing about the tilted equilibrium is, for a
 // small amplitude phi = atan(a/g), theta(t) = -phi (1 - cos(w t)) with
-// w = sqrt(sqrt(g^2 + a^2) / L) (validation-sources sec. 2 [derived]: release
+// w = sqrt(sqrt(g^2 + a^2) / L) (docs/sources.md sec. 2 [derived]: release
 // at rest in the tilted effective gravity). The hook block is 1e9 times the
 // load, so the hoist rope swings as a single pendulum of length L1 (the
 // m1 >> m2 limit of Kibble & Berkshire, docs/validation.md).

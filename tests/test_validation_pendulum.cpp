@@ -84,7 +84,7 @@ TEST_CASE("a large swing has the elliptic-integral period") {
     // Landau & Lifshitz sec. 11 [memory], K from Boost.Math. Tolerance 1e-6
     // relative: crossing interpolation on a 5 ms grid errs by < 1e-8 s.
     CHECK_THAT(measured, WithinRel(exact_period(length, g0, theta0), 1e-6));
-    // The recalled ratio T/T0 = 1.017409 at 30 deg (validation-sources.md section 2
+    // The recalled ratio T/T0 = 1.017409 at 30 deg (docs/sources.md section 2
     // [memory], given to 7 digits): tolerance 1e-6.
     CHECK_THAT(measured / T0, WithinAbs(1.017409, 1e-6));
 }
@@ -166,7 +166,7 @@ TEST_CASE("accelerating and decelerating for whole exact periods leaves no resid
     // Nonlinear exact: released at rest in the tilted field, the pendulum is back
     // at rest at theta = 0 after each whole exact period (Landau & Lifshitz sec. 11
     // [memory] with the tilted field [derived]). The trap: the linear period
-    // 2 pi sqrt(L/g) would leave about 2e-4 rad here (validation-sources.md section 2).
+    // 2 pi sqrt(L/g) would leave about 2e-4 rad here (docs/sources.md section 2).
     const double a = 0.5;
     const double Ta = 2 * exact_period(length, std::hypot(g0, a), std::atan(a / g0));  // two periods
     const double v = a * Ta;
@@ -260,7 +260,7 @@ TEST_CASE("under constant support acceleration the energy in the support's frame
     const auto result = run(model, 20.0, 0.02);
     REQUIRE(result.trace.size() > 500);
     // E' = T_rel + sum m_i (g z_i + a x_i) is constant while a is [derived,
-    // validation-sources.md section 2]. Scale: E' above its equilibrium, both
+    // docs/sources.md section 2]. Scale: E' above its equilibrium, both
     // links along the effective gravity sqrt(g^2+a^2).
     const double g_eff = std::hypot(g0, a);
     const double rest = -(p.hook_block_mass + p.load_mass) * g_eff * p.rope_length -

@@ -65,7 +65,7 @@ TEST_CASE("under steady acceleration the links hang along the effective gravity"
 
 TEST_CASE("sling leg tension follows W / (n sin beta) on the worked two-leg example") {
     const double W = 100e3;  // N
-    // Rigging handbooks' rule, validation-sources.md section 7 [practice]; the
+    // Rigging handbooks' rule, docs/sources.md section 7 [practice]; the
     // listed values are rounded to 1 N, so the tolerance is 0.5 N.
     CHECK_THAT(plumb::sling_leg_tension(W, 2, deg(60)), WithinAbs(57735.0, 0.5));
     CHECK_THAT(plumb::sling_leg_tension(W, 2, deg(45)), WithinAbs(70711.0, 0.5));

@@ -203,7 +203,7 @@ TEST_CASE("an emergency stop brakes from the speed reached to rest at the stoppi
 
 TEST_CASE("the worst emergency stop while coasting doubles the swing left by the start", "[shaped_motion]") {
     // Accelerating at a for Ta leaves swing 2 (a/g)|sin(pi Ta/T)| while coasting
-    // (validation-sources sec. 2 [derived]); braking at d = a for Tb = Ta adds a
+    // (docs/sources.md sec. 2 [derived]); braking at d = a for Tb = Ta adds a
     // swing of the same size whose phase depends on the stop time, so the worst
     // stop leaves 4 (a/g)|sin(pi Ta/T)| (in phase) [derived]. Searched over the
     // coast (scan of 60 points, about 9 a period, then Brent).

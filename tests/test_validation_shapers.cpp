@@ -214,7 +214,7 @@ TEST_CASE("a shaper for an impossible mode is refused", "[shapers]") {
 }
 
 TEST_CASE("undamped shapers at a 10 percent frequency error leave the listed vibration", "[shapers]") {
-    // validation-sources sec. 4 check values [derived there from the V formula]:
+    // docs/sources.md sec. 4 check values [derived there from the V formula]:
     // ZV 0.1564 and ZVD 0.02447 at +-10 %, four significant figures.
     const InputShaper zv = zv_shaper({2.0, 0}), zvd = zvd_shaper({2.0, 0});
     for (const double r : {0.9, 1.1}) {
