@@ -25,7 +25,6 @@
 #include <string>
 #include <vector>
 
-#include "plumb/rigid_pendulum.hpp"
 #include "plumb/assessment.hpp"
 #include "plumb/errors.hpp"
 #include "plumb/job_file.hpp"
@@ -232,9 +231,11 @@ bool strict() {
 
 // Simulate, check and format a job the parser accepted.
 void run_pipeline(const plumb::Job& job, bool keep_time_series) {
-    const plumb::SwingModes modes = plumb::linear_swing_modes(plumb::RigidPendulumParameters::from_job(job));
+    const plumb::ModelDescription model = plumb::describe_lift_model(job);
+    if (!model.modes) return;  // the fuzzer's jobs use the rigid model, which has modes
+    const plumb::SwingModes& modes = *model.modes;
     const double end = plumb::SupportMotion::from_spec(job.motion).end_of_motion() +
-                       job.analysis.duration_after.value_or(plumb::automatic_duration_after(modes));
+                       job.analysis.duration_after.value_or(plumb::automatic_duration_after(model.modes));
     if (plumb::fast_mode_cycles(modes, end) > fuzz_cycle_budget) return;
     if (keep_time_series && end / job.analysis.output_step > 2e4) keep_time_series = false;
     ++stats.simulated;
