@@ -126,6 +126,7 @@ HtmlDocument::HtmlDocument(std::string_view document_title, PaperSize paper)
 void HtmlDocument::title_block(const ReportTitleBlock& t) {
     body_ += element("h1", t.job_title.empty() ? title_ : t.job_title) + "\n";
     body_ += "<table class=\"title-block\">\n";
+    if (!t.made_by.empty()) body_ += title_row("Report", t.made_by);
     body_ += title_row("Job reference", t.reference);
     body_ += title_row("Date of this report", t.date);
     body_ += title_row("plumb version", t.plumb_version);
