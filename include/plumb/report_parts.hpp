@@ -14,6 +14,7 @@
 #include "plumb/html_report.hpp"
 #include "plumb/output_units.hpp"
 #include "plumb/svg_plot.hpp"
+#include "plumb/sweep.hpp"
 
 namespace plumb {
 
@@ -60,6 +61,21 @@ void model_section(HtmlDocument& doc, const std::string& model_line, const std::
 
 // The section "Review" with the reviewer's name, signature and date.
 void review_section(HtmlDocument& doc);
+
+// ---- Sets of cases (sweep, scatter) ----------------------------------------
+
+// The worst verdict over the cases (an input or numerical error reads as
+// FAIL: nothing unchecked reads as a pass), with the counts in words and the
+// checks the base job cannot make. what: "cases" or "samples".
+VerdictBanner cases_banner(const LiftAssessment& base, const SweepResult& r, const std::string& what);
+
+// Per check: how many cases PASS, CAUTION, FAIL or NOT CHECKED, and the
+// largest utilisation with its case.
+ReportTable checks_over_cases_table(const SweepResult& r, const std::string& what);
+
+// The end of a report of many runs of one job: its inputs, the model (each
+// `one` - "case", "sample" - a full simulation), cautions and sign-off; the document's text.
+std::string close_cases_report(HtmlDocument& doc, const LiftAssessment& base, const std::string& one, UnitSystem u);
 
 // ---- Plotted quantities -----------------------------------------------------
 

@@ -229,6 +229,77 @@ void review_section(HtmlDocument& doc) {
     doc.reviewer_sign_off();
 }
 
+VerdictBanner cases_banner(const LiftAssessment& base, const SweepResult& r, const std::string& what) {
+    std::size_t pass = 0, caution = 0, fail = 0, error = 0;
+    for (const SweepCaseResult& c : r.cases) {
+        if (c.overall == "PASS") ++pass;
+        else if (c.overall == "CAUTION") ++caution;
+        else if (c.overall == "FAIL") ++fail;
+        else ++error;
+    }
+    VerdictBanner v;
+    v.verdict = fail + error > 0 ? Verdict::fail : caution > 0 ? Verdict::caution : Verdict::pass;
+    v.not_checked = static_cast<int>(checks_not_made(base.checks));
+    const std::string n = std::to_string(r.cases.size());
+    v.summary = "Of " + n + " " + what + ": " + std::to_string(pass) + " PASS, " + std::to_string(caution) +
+                " CAUTION, " + std::to_string(fail) + " FAIL" +
+                (error > 0 ? ", " + std::to_string(error) + " could not be run (counted as FAIL)" : "") + ".";
+    if (r.cases.size() < r.total_cases) {
+        v.summary += " This report holds " + n + " of " + std::to_string(r.total_cases) + " " + what +
+                     " (one shard): the others are not shown.";
+    }
+    for (std::size_t k = 0; k < r.check_names.size(); ++k) {
+        std::size_t failing = 0;
+        for (const SweepCaseResult& c : r.cases) {
+            if (k < c.check_verdicts.size() && c.check_verdicts[k] == "FAIL") ++failing;
+        }
+        if (failing > 0) v.driven_by.push_back(r.check_names[k] + " fails in " + std::to_string(failing) + " " + what);
+    }
+    if (error > 0) v.driven_by.push_back(std::to_string(error) + " " + what + " refused or not computed");
+    return v;
+}
+
+ReportTable checks_over_cases_table(const SweepResult& r, const std::string& what) {
+    ReportTable t;
+    t.caption = "Each check over the " + what;
+    t.columns = {{"check"}, {"PASS", ColumnAlign::right}, {"CAUTION", ColumnAlign::right},
+                 {"FAIL", ColumnAlign::right}, {"NOT CHECKED or not run", ColumnAlign::right},
+                 {"largest utilisation", ColumnAlign::right}};
+    for (std::size_t k = 0; k < r.check_names.size(); ++k) {
+        std::size_t pass = 0, caution = 0, fail = 0, other = 0;
+        double largest = -1.0;
+        std::size_t at = 0;
+        for (const SweepCaseResult& c : r.cases) {
+            const std::string verdict = k < c.check_verdicts.size() ? c.check_verdicts[k] : "";
+            if (verdict == "PASS") ++pass;
+            else if (verdict == "CAUTION") ++caution;
+            else if (verdict == "FAIL") ++fail;
+            else ++other;
+            if (k < c.check_utilisations.size() && std::isfinite(c.check_utilisations[k]) &&
+                c.check_utilisations[k] > largest) {
+                largest = c.check_utilisations[k];
+                at = c.index;
+            }
+        }
+        const std::string mark = fail > 0 ? "fail" : caution > 0 ? "caution" : pass == 0 ? "not-checked" : "";
+        t.add_row({r.check_names[k], std::to_string(pass), std::to_string(caution), std::to_string(fail),
+                   std::to_string(other),
+                   largest >= 0.0 ? percent(largest) + " (case " + std::to_string(at + 1) + ")" : "-"},
+                  mark);
+    }
+    return t;
+}
+
+std::string close_cases_report(HtmlDocument& doc, const LiftAssessment& base, const std::string& one, UnitSystem u) {
+    inputs_section(doc, base, u);
+    model_section(doc,
+                  "Model: " + base.prediction.model.name + ", each " + one +
+                      " a full simulation with the job's analysis settings.",
+                  base.prediction.model.assumptions);
+    review_section(doc);
+    return doc.finish();
+}
+
 std::string unit_of(Dimension d, UnitSystem u) { return std::string(unit_symbol(d, u)); }
 
 PlotSeries quantity_series(const LiftPrediction& p, const std::vector<Observation>& trace, Quantity q,
