@@ -197,7 +197,7 @@ void stop_section(HtmlDocument& doc, const LiftAssessment& planned, const Motion
     const MotionRun stop_run = run_for_plots(planned.job, o.motion);
     if (stop_run.trace.size() < 2 || planned_run.trace.size() < 2) return;
     doc.figure(motion_plot("Worst-case emergency stop", {{&planned_run, "planned"}, {&stop_run, "stopped"}},
-                           planned.job, u, {{s.stop_time, "stop at " + seconds(s.stop_time)}}),
+                           planned.job, u, {{s.stop_time, "stop at " + text::printf_string("%.2f", s.stop_time) + " s"}}),
                "Support speed and load offset against time for the planned move and for the emergency stop "
                "commanded at the worst moment (dashed vertical line); the load swings on after the support stands.");
 }
