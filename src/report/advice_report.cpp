@@ -10,10 +10,12 @@
 
 namespace plumb {
 
-using text::num;
+using text::num4;
 using text::percent;
-using text::qty;
-using text::seconds;
+using text::qty4;
+
+// Four significant digits: the advice compares options, and the tables must fit the page.
+std::string seconds4(double t) { return num4(t) + " s"; }
 
 const char* const advice_method_assumption =
     "Advice: shapers and whole-period moves are designed from the linearised modes and every option is "
@@ -42,14 +44,14 @@ ReportTable options_table(const AdviceFindings& f, UnitSystem u) {
                  {"residual swing", ColumnAlign::right},
                  {"peak hoist rope tension", ColumnAlign::right},
                  {"peak sling leg tension", ColumnAlign::right},
-                 {"limiting check (utilisation)"},
+                 {"limiting check"},
                  {"verdict"}};
     for (std::size_t i = 0; i < f.options.size(); ++i) {
         const MotionOutcome& o = f.options[i];
         const bool chosen = f.chosen && *f.chosen == i;
-        t.add_row({o.label + (chosen ? " (fastest passing)" : ""), seconds(o.travel_time),
-                   qty(o.peak_offset, Dimension::length, u), qty(o.residual_swing, Dimension::length, u),
-                   qty(o.peak_hoist_tension, Dimension::force, u), qty(o.peak_sling_leg_tension, Dimension::force, u),
+        t.add_row({o.label + (chosen ? " (fastest passing)" : ""), seconds4(o.travel_time),
+                   qty4(o.peak_offset, Dimension::length, u), qty4(o.residual_swing, Dimension::length, u),
+                   qty4(o.peak_hoist_tension, Dimension::force, u), qty4(o.peak_sling_leg_tension, Dimension::force, u),
                    limiting_text(o), option_verdict(o)},
                   o.valid ? verdict_mark(o.overall) : "fail");
     }
@@ -60,6 +62,7 @@ ReportTable options_table(const AdviceFindings& f, UnitSystem u) {
 // load offset limit; marks (the stop) across both panels.
 std::string motion_plot(const std::string& title, const std::vector<std::pair<const MotionRun*, std::string>>& runs,
                         const Job& job, UnitSystem u, std::vector<TimeMark> marks = {}) {
+    const bool stop = !marks.empty();  // residual_swing is not applied to a stop: no line for it
     PlotPanel speed{"support speed", unit_of(Dimension::speed, u), {}, {}};
     speed.height = 120.0;
     PlotPanel offset{"load offset from the support", unit_of(Dimension::length, u), {}, {}};
@@ -69,7 +72,7 @@ std::string motion_plot(const std::string& title, const std::vector<std::pair<co
         offset.series.push_back(quantity_series(run->prediction, run->trace, Quantity::load_offset, label, u));
     }
     if (job.limits.load_offset) offset.limits.push_back(limit_line(*job.limits.load_offset, Dimension::length, u, "limit"));
-    if (job.limits.residual_swing) {
+    if (job.limits.residual_swing && !stop) {
         offset.limits.push_back(limit_line(*job.limits.residual_swing, Dimension::length, u, "residual limit"));
     }
     TimePlot plot;
@@ -116,9 +119,9 @@ std::string per_move(const Job& job, double scale, bool accelerations, UnitSyste
     for (std::size_t i = 0; i < job.motion.moves.size(); ++i) {
         const Move& m = job.motion.moves[i];
         moves.push_back("move " + std::to_string(i + 1) + ": " +
-                        (accelerations ? qty(scale * m.acceleration, Dimension::acceleration, u) + " / " +
-                                             qty(scale * m.deceleration, Dimension::acceleration, u)
-                                       : qty(scale * m.top_speed, Dimension::speed, u)));
+                        (accelerations ? qty4(scale * m.acceleration, Dimension::acceleration, u) + " / " +
+                                             qty4(scale * m.deceleration, Dimension::acceleration, u)
+                                       : qty4(scale * m.top_speed, Dimension::speed, u)));
     }
     return text::join(moves, "; ");
 }
@@ -134,7 +137,7 @@ ReportTable scale_table(const Job& job, const AccelerationAdvice& a, bool accele
     } else if (s.whole_range_passes) {
         t.add_row({"result", "every check passes up to 4 times the planned values (the end of the search)"});
     } else {
-        t.add_row({"largest passing scale", num(s.value) + " (" + percent(s.value) + " of the planned values)"});
+        t.add_row({"largest passing scale", num4(s.value) + " (" + percent(s.value) + " of the planned values)"});
         t.add_row({accelerations ? "accelerations / decelerations" : "top speeds", per_move(job, s.value, accelerations, u)});
     }
     if (s.any_passes && a.at_value) {
@@ -142,9 +145,9 @@ ReportTable scale_table(const Job& job, const AccelerationAdvice& a, bool accele
                                          " of its limit (at the scale found)"});
     }
     if (s.any_passes && !s.whole_range_passes) {
-        t.add_row({"verification run at " + num(s.value), s.passes_at_value ? "passes" : "FAILS"},
+        t.add_row({"verification run at " + num4(s.value), s.passes_at_value ? "passes" : "FAILS"},
                   s.passes_at_value ? "pass" : "fail");
-        t.add_row({"verification run at " + num(s.probe_above) + " (2 % above)", s.fails_above ? "fails, as it must" : "PASSES"},
+        t.add_row({"verification run at " + num4(s.probe_above) + " (2 % above)", s.fails_above ? "fails, as it must" : "PASSES"},
                   s.fails_above ? "" : "fail");
         t.add_row({"a reliable limit", s.verified ? "yes: passes at the value and fails just above" : "NO"},
                   s.verified ? "" : "fail");
@@ -181,13 +184,13 @@ void stop_section(HtmlDocument& doc, const LiftAssessment& planned, const Motion
     ReportTable t;
     t.caption = "The worst moment to stop";
     t.columns = {{"item"}, {"value"}};
-    t.add_row({"emergency deceleration", qty(s.deceleration, Dimension::acceleration, u)});
-    t.add_row({"worst stop commanded at", "t = " + seconds(s.stop_time)});
-    t.add_row({"support at rest after the stop", "t = " + seconds(o.travel_time)});
-    t.add_row({"peak load offset", qty(o.peak_offset, Dimension::length, u)});
-    t.add_row({"swing after the stop (load offset amplitude)", qty(o.residual_swing, Dimension::length, u)});
-    t.add_row({"peak hoist rope tension", qty(o.peak_hoist_tension, Dimension::force, u)});
-    t.add_row({"peak sling leg tension", qty(o.peak_sling_leg_tension, Dimension::force, u)});
+    t.add_row({"emergency deceleration", qty4(s.deceleration, Dimension::acceleration, u)});
+    t.add_row({"worst stop commanded at", "t = " + seconds4(s.stop_time)});
+    t.add_row({"support at rest after the stop", "t = " + seconds4(o.travel_time)});
+    t.add_row({"peak load offset", qty4(o.peak_offset, Dimension::length, u)});
+    t.add_row({"swing after the stop (load offset amplitude)", qty4(o.residual_swing, Dimension::length, u)});
+    t.add_row({"peak hoist rope tension", qty4(o.peak_hoist_tension, Dimension::force, u)});
+    t.add_row({"peak sling leg tension", qty4(o.peak_sling_leg_tension, Dimension::force, u)});
     t.add_row({"limiting check", limiting_text(o)});
     t.add_row({"verdict of the worst stop", option_verdict(o)}, o.valid ? verdict_mark(o.overall) : "fail");
     t.add_row({"search", "scan and refinement over the stop time, " + std::to_string(s.search.evaluations) +

@@ -788,13 +788,21 @@ std::string render_histogram(const Histogram& h) {
         }
         svg.end_group();
     }
-    SvgTextStyle label{10.0, TextAnchor::end, false, "#8b0000", 0.0, "limit-label", "#fff"};
+    // Each label one line lower than the one before, so that labels of
+    // nearby lines do not overlap; left of its line, or right of it near
+    // the frame's left side.
+    double baseline = f.top + 12.0;
     for (const LimitLine& l : h.limits) {
         if (!std::isfinite(l.value)) continue;
+        const double x = f.px(l.value);
+        const bool room_left = x - f.left > 6.2 * static_cast<double>(l.label.size()) + 8.0;
+        const SvgTextStyle label{10.0, room_left ? TextAnchor::end : TextAnchor::start, false, "#8b0000", 0.0,
+                                 "limit-label", "#fff"};
         svg.begin_group("limit", l.label);
-        svg.line({f.px(l.value), f.top}, {f.px(l.value), f.bottom()}, limit_style);
-        svg.text({f.px(l.value) - 4.0, f.top + 12.0}, l.label, label);
+        svg.line({x, f.top}, {x, f.bottom()}, limit_style);
+        svg.text({room_left ? x - 4.0 : x + 4.0, baseline}, l.label, label);
         svg.end_group();
+        baseline += 12.0;
     }
     draw_y_axis(svg, f, "samples");
     draw_x_axis(svg, f, axis_label(h.quantity, h.unit));
