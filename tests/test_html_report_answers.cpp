@@ -284,7 +284,13 @@ TEST_CASE("the scatter report's histograms hold every sample and it names the pr
     std::size_t binned = 0;
     for (const std::string& label : doc.values(hook + "//svg:g[@class='bin']/@aria-label")) binned += std::stoul(label);
     CHECK(binned == 40);
-    CHECK(doc.count(hook + "//svg:g[@class='limit'][@aria-label='limit 100 %']") == 1);
+    // The hook rope angle limit is fixed in the job file (limits.hook_rope_angle: 3 deg): the peaks
+    // are drawn in degrees against it.
+    CHECK(doc.count(hook + "//svg:g[@class='limit'][@aria-label='limit 3 deg']") == 1);
+    CHECK(doc.count(hook + "//svg:text[@class='axis-label'][.='peak hook rope angle from vertical (deg)']") == 1);
+    // The residual swing is no peak of the quantity table: drawn as a share of its limit.
+    const std::string residual = "//svg:svg[starts-with(svg:title, 'residual_swing:')]";
+    CHECK(doc.count(residual + "//svg:g[@class='limit'][@aria-label='limit 100 %']") == 1);
     const std::string words = joined(doc.values("//section[h2='Failure probabilities']/p"));
     for (const char* method : {"Latin hypercube", "Wilson", "Clopper-Pearson", "95 %"}) {
         INFO(method);

@@ -1,10 +1,12 @@
 // The report of `plumb scatter --report` (answer_reports.hpp): the uncertain
 // inputs, the failure probability of each check with its confidence
 // intervals and the method named, and the distribution of each check's peak
-// as a share of its limit, drawn as a histogram with the limit line.
+// drawn as a histogram with the limit line.
 #include "plumb/answer_reports.hpp"
 
+#include <algorithm>
 #include <cmath>
+#include <optional>
 
 #include "plumb/report_parts.hpp"
 #include "plumb/text_layout.hpp"
@@ -101,20 +103,64 @@ std::vector<double> utilisations(const ScatterResult& r, std::size_t k) {
     return v;
 }
 
-void histograms(HtmlDocument& doc, const ScatterResult& r, double caution_fraction) {
+// A check that compares a peak of the quantity table (its key the check's
+// name) with a limit that is the same in every sample (the peak over the
+// utilisation does not change): the peaks in the output's units and that limit.
+struct PeaksAgainstLimit {
+    const QuantitySpec* spec = nullptr;
+    double limit = 0;  // SI
+    std::vector<double> peaks;  // SI, NaN where the check was not made
+};
+
+std::optional<PeaksAgainstLimit> peaks_against_limit(const ScatterResult& r, std::size_t k) {
+    const std::vector<std::string> keys = sweep_peak_keys();
+    const auto at = std::find(keys.begin(), keys.end(), r.cases.check_names[k]);
+    if (at == keys.end()) return std::nullopt;
+    const auto q = static_cast<std::size_t>(at - keys.begin());
+    PeaksAgainstLimit out;
+    for (const QuantitySpec& spec : quantity_table()) {
+        if (spec.key == *at) out.spec = &spec;
+    }
+    std::optional<double> limit;
+    for (const SweepCaseResult& c : r.cases.cases) {
+        const double used = k < c.check_utilisations.size() ? c.check_utilisations[k] : NAN;
+        const bool made = std::isfinite(used) && q < c.peaks.size();
+        out.peaks.push_back(made ? c.peaks[q] : NAN);
+        if (!made || used <= 0) continue;
+        const double this_limit = c.peaks[q] / used;
+        if (!limit) limit = this_limit;
+        if (std::fabs(this_limit - *limit) > 1e-6 * std::fabs(*limit)) return std::nullopt;  // the limit varies
+    }
+    if (!limit || !out.spec) return std::nullopt;
+    out.limit = *limit;
+    return out;
+}
+
+// Of each check made in any sample: its peak against the limit line in the
+// output's units where the limit is fixed, else its value as a share of its limit.
+void histograms(HtmlDocument& doc, const ScatterResult& r, double caution_fraction, UnitSystem u) {
     for (std::size_t k = 0; k < r.cases.check_names.size(); ++k) {
-        const std::vector<double> values = utilisations(r, k);
-        const auto binned = static_cast<std::size_t>(
-            std::count_if(values.begin(), values.end(), [](double v) { return std::isfinite(v); }));
-        if (binned == 0) continue;  // a check no sample could make: its table row says so
+        const std::string& name = r.cases.check_names[k];
         Histogram h;
-        h.title = r.cases.check_names[k] + ": peak as a share of its limit";
-        h.quantity = "utilisation";
-        h.unit.assign(1, '%');  // assigned, not from a literal: GCC 12 warns falsely (-Wrestrict) on the literal
-        h.values = values;
-        h.limits = {{100.0, "limit 100 %"}, {100.0 * caution_fraction, "CAUTION " + percent(caution_fraction)}};
         h.height = 150.0;
-        const std::size_t left_out = values.size() - binned;
+        if (const std::optional<PeaksAgainstLimit> p = peaks_against_limit(r, k)) {
+            const Dimension d = p->spec->dimension;
+            h.title = name + ": peak " + p->spec->words;
+            h.quantity = std::string("peak ") + p->spec->words;
+            h.unit = unit_of(d, u);
+            for (const double v : p->peaks) h.values.push_back(std::isfinite(v) ? shown_value(v, d, u) : NAN);
+            h.limits = {limit_line(p->limit, d, u, "limit"), limit_line(caution_fraction * p->limit, d, u, "CAUTION")};
+        } else {
+            h.title = name + ": value as a share of its limit";
+            h.quantity = "utilisation";
+            h.unit.assign(1, '%');  // assigned, not from a literal: GCC 12 warns falsely (-Wrestrict) on the literal
+            h.values = utilisations(r, k);
+            h.limits = {{100.0, "limit 100 %"}, {100.0 * caution_fraction, "CAUTION " + percent(caution_fraction)}};
+        }
+        const auto binned = static_cast<std::size_t>(
+            std::count_if(h.values.begin(), h.values.end(), [](double v) { return std::isfinite(v); }));
+        if (binned == 0) continue;  // a check no sample could make: its table row says so
+        const std::size_t left_out = h.values.size() - binned;
         doc.figure(render_histogram(h),
                    std::to_string(binned) + " samples binned" +
                        (left_out > 0 ? "; " + std::to_string(left_out) + " samples where the check was not made or the sample could not be run are left out" : "") +
@@ -150,7 +196,7 @@ std::string format_scatter_report(const LiftAssessment& base, const ScatterResul
     doc.table(checks_over_cases_table(result.cases, "samples"));
 
     doc.begin_section("Distributions of the peaks", SectionStart::new_page);
-    histograms(doc, result, job.limits.caution_fraction);
+    histograms(doc, result, job.limits.caution_fraction, units);
     doc.table(peaks_table(result, units));
 
     return close_cases_report(doc, base, "sample", units);
