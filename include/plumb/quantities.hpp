@@ -23,6 +23,7 @@ enum class Quantity : std::size_t {
     support_position,
     support_speed,
     support_acceleration,
+    slew_angle,
     hook_rope_angle,
     hook_rope_rate,
     load_angle,
@@ -45,7 +46,7 @@ enum class Quantity : std::size_t {
     dynamic_factor,
     rigging_dynamic_factor,
 };
-inline constexpr std::size_t quantity_count = 24;
+inline constexpr std::size_t quantity_count = 25;
 
 constexpr std::size_t index_of(Quantity q) { return static_cast<std::size_t>(q); }
 

@@ -225,15 +225,16 @@ std::vector<InputFact> input_facts(const LiftAssessment& a, UnitSystem u) {
         motion = "speed history of " + std::to_string(m.count) + " rows";
         if (!job.motion.speed_history_file.empty()) motion += " from " + job.motion.speed_history_file;
     } else if (m.count == 0 && job.motion.slew) {
-        motion = "no travel";
+        motion = "no travel of the slew axis";
     } else {
         motion = std::to_string(m.count) + (m.count == 1 ? " move" : " moves");
     }
-    motion += "; total travel " + qty(m.total_travel, Dimension::length, u) + ", end position " +
-              qty(m.net_travel, Dimension::length, u) + "; peak speed " +
-              qty(m.peak_speed, Dimension::speed, u) + "; peak acceleration " +
-              qty(m.peak_acceleration, Dimension::acceleration, u) + "; support at rest for good from t = " +
-              seconds(a.prediction.end_of_motion);
+    if (m.count > 0 || m.from_history || !job.motion.slew) {
+        motion += "; total travel " + qty(m.total_travel, Dimension::length, u) + ", end position " +
+                  qty(m.net_travel, Dimension::length, u) + "; peak speed " + qty(m.peak_speed, Dimension::speed, u) +
+                  "; peak acceleration " + qty(m.peak_acceleration, Dimension::acceleration, u);
+    }
+    motion += "; support at rest for good from t = " + seconds(a.prediction.end_of_motion);
     if (job.motion.slew) {
         const SlewDigest sd = digest_slew(*job.motion.slew);
         motion += "; slewing about a vertical axis through the travel position: jib from " +

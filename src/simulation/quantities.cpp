@@ -38,10 +38,11 @@ double jib_component(const Member& m, const SupportKinematics& s, bool tangentia
     return std::atan2(along, -v.z());
 }
 
-// An angle component that only a slewing lift reports: series, and its peak magnitude.
+// An angle that only a slewing lift reports: a series (records series), or a
+// swing component with its peak magnitude too.
 constexpr QuantitySpec slewing_component(Quantity id, const char* key, const char* words,
-                                         double (*read)(const Observation&)) {
-    return {id, key, words, "", Dimension::angle, series | peak, read, true, no_base, nullptr,
+                                         double (*read)(const Observation&), unsigned records = series | peak) {
+    return {id, key, words, "", Dimension::angle, records, read, true, no_base, nullptr,
             StaticReference::none, false, 0, QuantityScope::slewing};
 }
 
@@ -59,6 +60,9 @@ constexpr QuantitySpec table[] = {
               [](const Observation& o) { return o.support.velocity.x(); }),
     simulated(Quantity::support_acceleration, "support_acceleration", "", "", Dimension::acceleration, series,
               [](const Observation& o) { return o.support.acceleration.x(); }),
+    // The jib's direction, to read the radial and tangential components against.
+    slewing_component(Quantity::slew_angle, "slew_angle", "",
+                      [](const Observation& o) { return o.support.slew_angle.value_or(0.0); }, series),
     simulated(Quantity::hook_rope_angle, "hook_rope_angle", "hook rope angle from vertical", "Hook rope angle",
               Dimension::angle, series | peak | residual | crossing,
               [](const Observation& o) { return rope(o).angle(); }, true, StaticReference::none, false, 1),
