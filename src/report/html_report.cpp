@@ -174,7 +174,7 @@ ReportTable peaks_table(const LiftAssessment& a, UnitSystem u) {
     t.caption = "Peaks over the whole simulation (t = 0 to " + seconds(p.end_time) + ")";
     t.columns = {{"quantity"}, {"peak", ColumnAlign::right}, {"at", ColumnAlign::right}, {"static", ColumnAlign::right}};
     for (const QuantitySpec& q : quantity_table()) {
-        if (!has_record(q, Record::peak)) continue;
+        if (!has_record(q, Record::peak) || !reported_for(q, a.job.motion)) continue;
         const Peak peak = p.peak(q.id);
         const std::optional<double> at_rest = p.static_value(q.id);
         t.add_row({q.words, qty(peak.value, q.dimension, u), "t = " + time_within_validity(peak.time, p.valid_until()),
