@@ -40,8 +40,9 @@ enum class Quantity : std::size_t {
     sling_leg_tension,
     dynamic_factor,
     rigging_dynamic_factor,
+    clearance,
 };
-inline constexpr std::size_t quantity_count = 20;
+inline constexpr std::size_t quantity_count = 21;
 
 constexpr std::size_t index_of(Quantity q) { return static_cast<std::size_t>(q); }
 
@@ -52,6 +53,9 @@ enum Record : unsigned {
     least = 1u << 2,     // the smallest value over the run, and when
     residual = 1u << 3,  // the largest value after the last move
     crossing = 1u << 4,  // first times a watched level is reached
+    // The least value per keep-out zone of the job, when, and where (the
+    // closest approach); the series record then applies only to jobs with zones.
+    per_zone = 1u << 5,
 };
 
 // Tensions with everything hanging at rest: the reference of dynamic factors.
