@@ -292,6 +292,7 @@ ReportTable limits_table(const LiftAssessment& a, UnitSystem u) {
     t.caption = "Limits";
     t.columns = {{"limit"}, {"value", ColumnAlign::right}, {"in the job file"}};
     for (const LimitRow& row : limit_rows()) {
+        if (row.keep_out_only && job.obstacles.zones.empty()) continue;
         const std::optional<double>& value = job.limits.*(row.member);
         // The row's own line where the file's key has the row's name, else the section's lines.
         const std::string key = std::string("limits.") + row.key;

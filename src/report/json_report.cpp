@@ -204,7 +204,7 @@ std::string format_json(const LiftAssessment& a, UnitSystem u) {
         {"checks_not_made", not_checked.size()},
         {"not_checked", not_checked},
         {"rated_load", rated_load},
-        {"limits_not_given", limits_not_given(a.job.limits)},
+        {"limits_not_given", limits_not_given(a.job.limits, !a.job.obstacles.zones.empty())},
         {"overall_verdict", verdict_word(a.overall)},
         {"overall_line", overall_line(a)},
         {"overall_explanation", verdict_explanation(a)},
