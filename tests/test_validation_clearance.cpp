@@ -170,25 +170,35 @@ TEST_CASE("a load at rest beside a box has the clearance of its hanging corners,
     CHECK(fail.checks.back().first_exceedance == Approx(0.0).margin(1e-12));
 }
 
-TEST_CASE("a load held at the steady swing angle atan(a/g) while the support accelerates clears a block below by the known height") {
-    // Rigid model. The support accelerates at a = 2 m/s^2 to 4 m/s (2 s); the
-    // load starts at the steady angle -atan(a/g), both links in one line, at
-    // rest relative to the support: in the accelerating frame gravity leans
-    // by atan(a/g) and this is its equilibrium (d'Alembert; derived), so the
-    // sphere's centre stays 6 m cos(atan(a/g)) = 6 g / sqrt(g^2 + a^2) below the
-    // suspension point, 10 m above the floor.
-    const double g = 9.80665, a = 2.0;
-    const double theta = std::atan(a / g);
+// The support accelerates at steady_a = 2 m/s^2 to 4 m/s (2 s); the load, a
+// sphere of radius 0.5 m, starts at the steady angle -atan(a/g), both links
+// in one line, at rest relative to the support: in the accelerating frame
+// gravity leans by atan(a/g) and this is its equilibrium (d'Alembert's
+// principle; derived, sources.md sec. 11). Its centre stays 6 m cos(atan(a/g))
+// below the suspension point, 10 m above the floor, and 6 m sin(atan(a/g))
+// behind it.
+namespace {
+
+constexpr double steady_g = 9.80665, steady_a = 2.0;
+const double steady_angle = std::atan(steady_a / steady_g);
+
+LiftAssessment steady_swing_past(const std::string& zone) {
     const std::string motion = "  moves:\n    - distance: 20 m\n      top_speed: 4 m/s\n"
                                "      acceleration: 2 m/s^2\n      deceleration: 2 m/s^2\n";
-    const std::string load = "  initial_angle: " + std::to_string(-theta * 180 / std::acos(-1.0)) + " deg\n" +
-                             "  size: {radius: 0.5 m}\n";
+    const std::string load = "  initial_angle: " + std::to_string(-steady_angle * 180 / std::acos(-1.0)) +
+                             " deg\n  size: {radius: 0.5 m}\n";
+    return assess_lift(parse_job(rigid_job(motion, load, zone, "  clearance: 0.3 m\n"), "job.yaml"), false);
+}
+
+}  // namespace
+
+TEST_CASE("a load held at the steady swing angle atan(a/g) while the support accelerates clears a block below by the known height") {
     // A block 3 m high under the load's path during the acceleration only
     // (the load's CG runs from x = -1.2 m to +2.8 m then).
-    const std::string zone = "    - name: block\n"
-                             "      box: {x_min: -0.5 m, x_max: 1.5 m, y_min: -1 m, y_max: 1 m, z_min: 0 m, z_max: 3 m}\n";
-    const LiftAssessment r = assess_lift(parse_job(rigid_job(motion, load, zone, "  clearance: 0.3 m\n"), "job.yaml"),
-                                         false);
+    const LiftAssessment r = steady_swing_past(
+        "    - name: block\n"
+        "      box: {x_min: -0.5 m, x_max: 1.5 m, y_min: -1 m, y_max: 1 m, z_min: 0 m, z_max: 3 m}\n");
+    const double g = steady_g, a = steady_a;
     const double expected = 10 - 6 * g / std::sqrt(g * g + a * a) - 0.5 - 3;  // 0.61983... m
     const ClosestApproach& c = r.prediction.simulation.closest_approach[0];
     // The angle is printed to 6 digits in the job text: 1e-7 rad off the
@@ -200,31 +210,24 @@ TEST_CASE("a load held at the steady swing angle atan(a/g) while the support acc
 }
 
 TEST_CASE("a load held at the steady swing angle passes a column at the closest approach time of its plan path") {
-    // As above; the sphere's centre runs along y = 0 at x(t) = a t^2 / 2 - 6 m sin(atan(a/g)).
+    // The sphere's centre runs along y = 0 at x(t) = a t^2 / 2 - 6 m sin(atan(a/g)).
     // A column of radius 0.3 m at (1 m, 2 m), taller than the lift: the plan
     // distance sqrt((x - 1)^2 + 2^2) is least, 2 m, when x(t) = 1 m (derived):
     // clearance 2 - 0.3 - 0.5 = 1.2 m at t = sqrt(2 (1 + 6 sin(atan(a/g))) / a).
     // The minimum is sharp in time: it lies between the integrator's samples
     // and is found on the dense output.
-    const double g = 9.80665, a = 2.0;
-    const double theta = std::atan(a / g);
-    const std::string motion = "  moves:\n    - distance: 20 m\n      top_speed: 4 m/s\n"
-                               "      acceleration: 2 m/s^2\n      deceleration: 2 m/s^2\n";
-    const std::string load = "  initial_angle: " + std::to_string(-theta * 180 / std::acos(-1.0)) + " deg\n" +
-                             "  size: {radius: 0.5 m}\n";
-    const std::string zone = "    - name: column\n"
-                             "      cylinder: {x: 1 m, y: 2 m, radius: 0.3 m, bottom: 0 m, top: 12 m}\n";
-    const LiftAssessment r = assess_lift(parse_job(rigid_job(motion, load, zone, "  clearance: 0.3 m\n"), "job.yaml"),
-                                         false);
+    const LiftAssessment r = steady_swing_past(
+        "    - name: column\n      cylinder: {x: 1 m, y: 2 m, radius: 0.3 m, bottom: 0 m, top: 12 m}\n");
+    const double theta = steady_angle, height = 10 - 6 * std::cos(steady_angle);
     const ClosestApproach& c = r.prediction.simulation.closest_approach[0];
     CHECK(c.at.clearance == Approx(1.2).margin(1e-6));
-    CHECK(c.time == Approx(std::sqrt(2 * (1 + 6 * std::sin(theta)) / a)).margin(1e-4));
-    CHECK(c.at.load_point.isApprox(Eigen::Vector3d(1, 0.5, 10 - 6 * std::cos(theta)), 1e-5));
-    CHECK(c.at.zone_point.isApprox(Eigen::Vector3d(1, 1.7, 10 - 6 * std::cos(theta)), 1e-5));
+    CHECK(c.time == Approx(std::sqrt(2 * (1 + 6 * std::sin(theta)) / steady_a)).margin(1e-4));
+    CHECK(c.at.load_point.isApprox(Eigen::Vector3d(1, 0.5, height), 1e-5));
+    CHECK(c.at.zone_point.isApprox(Eigen::Vector3d(1, 1.7, height), 1e-5));
 }
 
 TEST_CASE("an elastic-model load beside a vertical wall clears it by its plan distance less half its width") {
-    // A wall along x at y = 2 m (keep-out beyond, +y: left walking from +x to -x);
+    // A wall along x at y = 2 m (keep-out beyond, +y: right walking from +x to -x);
     // the load hangs at rest under the suspension point at y = 0, its box 1 m
     // wide: 1.5 m (plan geometry, derived; the rope stretch moves it only in z).
     const std::string job = "job:\n  title: wall\nmotion:\n  fixed_support: true\n"
@@ -232,7 +235,7 @@ TEST_CASE("an elastic-model load beside a vertical wall clears it by its plan di
                             "hook_block:\n  mass: 200 kg\nrigging:\n  length: 2 m\n"
                             "load:\n  mass: 5 t\n  size: {length: 2 m, width: 1 m, height: 1 m}\n"
                             "obstacles:\n  suspension_height: 12 m\n  zones:\n"
-                            "    - name: wall\n      plane: {x1: 5 m, y1: 2 m, x2: -5 m, y2: 2 m, keep_out: left}\n"
+                            "    - name: wall\n      plane: {x1: 5 m, y1: 2 m, x2: -5 m, y2: 2 m, keep_out: right}\n"
                             "analysis:\n  model: elastic\n  duration_after: 3 s\n"
                             "rope:\n  diameter: 16 mm\n  fill_factor: 0.55\n  modulus_gpa: 100\n";
     const LiftAssessment r = assess_lift(parse_job(job, "job.yaml"), false);
