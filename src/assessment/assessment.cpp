@@ -274,6 +274,8 @@ CheckResult clearance_check(const Job& job, const LiftPrediction& p, std::option
     if (!job.limits.clearance)
         return not_checked("clearance", words, Dimension::length, missing_limit("clearance"));
     const std::vector<ClosestApproach>& approaches = p.simulation.closest_approach;
+    if (approaches.size() != job.obstacles.zones.size())
+        return not_checked("clearance", words, Dimension::length, "the run computed no clearance to the zones");
     std::size_t nearest = 0;
     for (std::size_t k = 1; k < approaches.size(); ++k) {
         if (approaches[k].at.clearance < approaches[nearest].at.clearance) nearest = k;

@@ -464,6 +464,10 @@ std::string format_html_report(const LiftAssessment& a, const std::vector<Observ
     }
     doc.paragraph("Utilisation: the value as a share of its limit; a value above " +
                   percent(job.limits.caution_fraction) + " of its limit is a CAUTION, above 100 % a FAIL.");
+    for (const CheckResult& c : a.checks) {
+        if (!c.utilisation_basis.empty() && c.verdict != Verdict::not_checked)
+            doc.paragraph("Utilisation of " + c.name + " has its own basis: " + c.utilisation_basis + ".");
+    }
     if (const std::optional<double> valid_until = p.valid_until()) {
         doc.paragraph("The " + p.model.name + " is not valid past t = " + seconds(*valid_until) +
                       ": values after that time are not predictions.");
