@@ -145,3 +145,8 @@ TEST_CASE("a bare number in a zone is read in the file's declared units") {
     CHECK(job.obstacles.zones[0].low[0] == Approx(8 * 0.3048));
     CHECK(has(error_of(with("x_min: 8 m", "x_min: 8")), "obstacles.zones[1].box.x_min"));
 }
+
+TEST_CASE("a suspension point too low for the rope and rigging is an input error naming the key") {
+    // 5 m of rope and 1.5 m of rigging hang 6.5 m below it: at 6 m the load would be below the floor.
+    CHECK(has(error_of(with("suspension_height: 30 ft", "suspension_height: 6 m")), "obstacles.suspension_height"));
+}

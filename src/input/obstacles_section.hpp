@@ -139,6 +139,11 @@ void read_obstacles(const Section& top, const Section& load, const Section* limi
     Obstacles& o = job.obstacles;
     o.suspension_height = s.quantity("suspension_height", Dimension::length);
     s.check_range("suspension_height", o.suspension_height, Dimension::length, 0, false, max_site_extent, true);
+    const double hanging = job.hoist.rope_length + job.rigging.length;
+    if (!(o.suspension_height > hanging))
+        s.fail_at("suspension_height", "must be more than the rope length plus the rigging length (" +
+                                           show(hanging, Dimension::length) +
+                                           "): the load's centre of gravity would hang at or below the floor datum");
     const auto& list = s.require("zones");
     if (!list.value.IsSequence() || list.value.size() == 0)
         s.fail_at(list, "expected a list of keep-out zones (each starting with '- name:')");
