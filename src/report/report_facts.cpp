@@ -4,6 +4,7 @@
 #include <cmath>
 #include <numbers>
 
+#include "plumb/clearance.hpp"
 #include "plumb/motion.hpp"
 #include "plumb/text_layout.hpp"
 
@@ -234,6 +235,23 @@ std::string parts_of_line_text(int parts) {
     return std::to_string(parts) + (parts == 1 ? " part of line" : " parts of line");
 }
 
+namespace {
+
+// The zones by name and shape, the load's outline and the height datum.
+std::string keep_out_text(const Obstacles& o, UnitSystem u) {
+    std::vector<std::string> zones;
+    for (const KeepOutZone& z : o.zones) zones.push_back(z.name + " (" + zone_shape_words(z.shape) + ")");
+    const LoadSize& size = o.load_size;
+    const std::string outline =
+        size.radius > 0 ? "a sphere of radius " + qty(size.radius, Dimension::length, u)
+                        : "a box " + qty(size.length, Dimension::length, u) + " x " +
+                              qty(size.width, Dimension::length, u) + " x " + qty(size.height, Dimension::length, u);
+    return text::join(zones, ", ") + "; load outline " + outline + "; suspension point " +
+           qty(o.suspension_height, Dimension::length, u) + " above the floor datum";
+}
+
+}  // namespace
+
 std::vector<InputFact> input_facts(const LiftAssessment& a, UnitSystem u) {
     const Job& job = a.job;
     const MotionDigest m = digest_motion(job.motion);
@@ -285,6 +303,7 @@ std::vector<InputFact> input_facts(const LiftAssessment& a, UnitSystem u) {
     }
     out.push_back({"Load", load, "load"});
     out.push_back({"Gravity", qty(job.environment.gravity, Dimension::acceleration, u), "environment"});
+    if (!job.obstacles.zones.empty()) out.push_back({"Keep-out zones", keep_out_text(job.obstacles, u), "obstacles"});
     return out;
 }
 

@@ -82,7 +82,9 @@ public:
         for (ExtremeTracker& t : residual_) t.seen = false;
         result.first_crossing.assign(request.watch.size(), std::nullopt);
         const std::size_t zones = request.obstacles != nullptr ? request.obstacles->zones.size() : 0;
-        result.closest_approach.assign(zones, {0, {std::numeric_limits<double>::infinity(), {}, {}}});
+        ClosestApproach none;  // beaten by the first step
+        none.at.clearance = std::numeric_limits<double>::infinity();
+        result.closest_approach.assign(zones, none);
         zone_values_.resize(zones);
     }
 
