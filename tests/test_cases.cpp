@@ -63,3 +63,20 @@ TEST_CASE("the logged gantry travel demo is a CAUTION on residual swing", "[case
     CHECK(verdict_of(a, "residual_swing") == Verdict::caution);
     CHECK(a.job.motion.speed_history.size() > 2);
 }
+
+TEST_CASE("the workshop two-axis demo fails on clearance only, at the boring machine", "[cases]") {
+    const LiftAssessment a = assess_case("workshop-two-axis-hoist.yaml");
+    CHECK(a.overall == Verdict::fail);
+    CHECK(verdict_of(a, "clearance") == Verdict::fail);
+    for (const CheckResult& c : a.checks) {
+        if (c.name != "clearance") {
+            INFO(c.name);
+            CHECK(c.verdict != Verdict::fail);
+        }
+    }
+    // The housing's corner goes below the machine's top: negative clearance at the machine.
+    REQUIRE(a.prediction.simulation.closest_approach.size() == 3);
+    CHECK(a.prediction.simulation.closest_approach[0].at.clearance < 0);
+    CHECK(a.prediction.simulation.closest_approach[1].at.clearance > 0.5);
+    CHECK(a.prediction.simulation.closest_approach[2].at.clearance > 0.5);
+}

@@ -58,7 +58,7 @@ void check_outputs_follow_the_table(const std::string& case_name) {
     for (const QuantitySpec& q : quantity_table()) {
         INFO(q.key);
         CHECK(q.records != 0);  // every quantity is reported somewhere
-        const bool reported = reported_for(q, a.job.motion);
+        const bool reported = reported_for(q, a.job);
         auto has = [&](Record r) { return reported && has_record(q, r); };
         CHECK(has_column(columns, q.key) == has(Record::series));
         if (has(Record::series)) ++series_count;
@@ -87,8 +87,8 @@ TEST_CASE("a slewing lift also lists the radial and tangential swing components"
     for (const QuantitySpec& q : quantity_table()) {
         if (q.scope == QuantityScope::slewing) {
             ++slewing_only;
-            CHECK(reported_for(q, job.motion));
-            CHECK_FALSE(reported_for(q, demo_job().motion));
+            CHECK(reported_for(q, job));
+            CHECK_FALSE(reported_for(q, demo_job()));
         }
     }
     CHECK(slewing_only == 5);  // the slew angle; radial and tangential, hoist rope and rigging

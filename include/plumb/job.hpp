@@ -2,6 +2,7 @@
 // everything after the parser reads it and nothing else.
 #pragma once
 
+#include <array>
 #include <map>
 #include <optional>
 #include <string>
@@ -126,6 +127,7 @@ struct Limits {
     std::optional<double> sling_leg_share;     // fraction of the leg WLL
     std::optional<double> dynamic_factor;      // swing dynamic factor: peak hoist rope tension over static
     std::optional<double> rope_design_factor;  // least allowed minimum breaking load over lead-line pull
+    std::optional<double> clearance;           // m, least allowed clearance of the load to a keep-out zone
     double caution_fraction = 0.9;             // a value above this share of its limit is a CAUTION
 };
 
@@ -163,6 +165,41 @@ struct AnalysisSettings {
     SwingModelChoice model = SwingModelChoice::rigid;
 };
 
+// Keep-out zones around the lift (the job file's section `obstacles`), in
+// ground axes: x, y as the travel axes in plan, z up from the floor datum.
+enum class ZoneShape {
+    box,       // axis-aligned: low and high corners
+    plane,     // vertical half-space: the side of a line in plan
+    cylinder,  // vertical: centre in plan, radius, bottom and top heights
+};
+
+struct KeepOutZone {
+    std::string name;
+    ZoneShape shape = ZoneShape::box;
+    // box: corners (x_min, y_min, z_min) and (x_max, y_max, z_max).
+    // plane: the line in plan through `low` and `high` (their z unused); the
+    //   keep-out side lies to the left when walking from low to high.
+    // cylinder: centre in plan (low.x, low.y), bottom low.z, top high.z.
+    std::array<double, 3> low{};
+    std::array<double, 3> high{};
+    double radius = 0;  // m, cylinder only
+};
+
+// The load's outline for the clearance: a box (length along x, width along
+// y when hanging plumb; it tilts with the rigging line) or a sphere.
+struct LoadSize {
+    double length = 0;  // m
+    double width = 0;   // m
+    double height = 0;  // m, along the rigging line
+    double radius = 0;  // m; > 0: a sphere and the box sizes are 0
+};
+
+struct Obstacles {
+    double suspension_height = 0;  // m, suspension point above the floor datum of the zones' heights
+    LoadSize load_size;
+    std::vector<KeepOutZone> zones;  // empty: no obstacles
+};
+
 struct Job {
     std::string title;
     std::string reference;
@@ -178,6 +215,7 @@ struct Job {
     Limits limits;
     AnalysisSettings analysis;
     std::optional<RopeElasticity> rope;  // the elastic model's rope data (required by it)
+    Obstacles obstacles;
     // Where each key was given in the job file ("hook_block.mass" -> file,
     // line, column, key path), so that a check after the parser can point at
     // the input it refuses. Empty for a Job built in code.

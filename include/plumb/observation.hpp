@@ -8,6 +8,7 @@
 #include <array>
 #include <cmath>
 #include <cstddef>
+#include <limits>
 
 #include <Eigen/Core>
 
@@ -62,6 +63,10 @@ struct Observation {
     Eigen::Vector3d hook_block = Eigen::Vector3d::Zero();  // m, relative to the suspension point
     Eigen::Vector3d load_cg = Eigen::Vector3d::Zero();     // m, relative to the suspension point
     std::array<Member, member_count> members{};
+    // m, the least clearance of the load to the job's keep-out zones
+    // (clearance.hpp); filled by the simulation, not by the models. Infinity:
+    // the job has no keep-out zones.
+    double clearance = std::numeric_limits<double>::infinity();
 
     const Member& member(MemberId id) const { return members[static_cast<std::size_t>(id)]; }
     Member& member(MemberId id) { return members[static_cast<std::size_t>(id)]; }

@@ -45,8 +45,9 @@ enum class Quantity : std::size_t {
     sling_leg_tension,
     dynamic_factor,
     rigging_dynamic_factor,
+    clearance,
 };
-inline constexpr std::size_t quantity_count = 25;
+inline constexpr std::size_t quantity_count = 26;
 
 constexpr std::size_t index_of(Quantity q) { return static_cast<std::size_t>(q); }
 
@@ -57,6 +58,9 @@ enum Record : unsigned {
     least = 1u << 2,     // the smallest value over the run, and when
     residual = 1u << 3,  // the largest value after the last move
     crossing = 1u << 4,  // first times a watched level is reached
+    // The least value per keep-out zone of the job, when, and where (the
+    // closest approach); the series record then applies only to jobs with zones.
+    per_zone = 1u << 5,
 };
 
 // Tensions with everything hanging at rest: the reference of dynamic factors.
@@ -115,9 +119,11 @@ const QuantitySpec& quantity_spec(Quantity q);
 
 inline bool has_record(const QuantitySpec& s, Record r) { return (s.records & r) != 0; }
 inline bool is_derived(const QuantitySpec& s) { return s.read == nullptr; }
-// Whether the outputs of a lift with this motion list the quantity.
-inline bool reported_for(const QuantitySpec& s, const SupportMotionSpec& motion) {
-    return s.scope == QuantityScope::every_lift || motion.slew.has_value();
+// Whether the outputs of this job list the quantity: slewing-only quantities
+// for a slewing lift, per-zone ones (the clearance) for a job with keep-out zones.
+inline bool reported_for(const QuantitySpec& s, const Job& job) {
+    if (s.scope == QuantityScope::slewing && !job.motion.slew.has_value()) return false;
+    return !has_record(s, Record::per_zone) || !job.obstacles.zones.empty();
 }
 
 // The value the records track: the read value, or its magnitude. Only for

@@ -8,6 +8,8 @@
 #include <string>
 #include <vector>
 
+#include <Eigen/Core>
+
 #include "plumb/assessment.hpp"
 #include "plumb/report.hpp"  // lift_cautions()
 
@@ -44,10 +46,12 @@ struct LimitRow {
     const char* words;
     std::optional<double> Limits::*member;
     Dimension dimension;
+    bool keep_out_only = false;  // a limit that applies only to a job with keep-out zones
 };
 std::span<const LimitRow> limit_rows();
 // Limits the job does not give, in words, so a reader sees what was not checked.
-std::vector<std::string> limits_not_given(const Limits& l);
+// A limit that applies only with keep-out zones is listed only when the job has them.
+std::vector<std::string> limits_not_given(const Limits& l, bool has_keep_out_zones = false);
 
 // One sentence per member that goes slack, with what that means for the model.
 std::vector<std::string> slack_statements(const LiftPrediction& p);
@@ -73,6 +77,12 @@ std::vector<std::string> not_checked_statements(const LiftAssessment& a);
 std::string rated_load_statement(const LiftAssessment& a, UnitSystem u);
 
 std::string mode_shape_words(double load_per_hook_angle);
+
+// How the clearance to keep-out zones is measured (the load's outline, its
+// orientation, the height datum, what corners miss), in one paragraph.
+std::string clearance_basis_words(const Obstacles& o, UnitSystem u);
+// A point in ground axes as "(x, y, z)" with its unit.
+std::string point_text(const Eigen::Vector3d& p, UnitSystem u);
 double frequency_hz(const SwingMode& m);
 
 }  // namespace plumb

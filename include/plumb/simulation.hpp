@@ -9,6 +9,7 @@
 #include <optional>
 #include <vector>
 
+#include "plumb/clearance.hpp"
 #include "plumb/integrator.hpp"
 #include "plumb/model.hpp"
 #include "plumb/quantities.hpp"
@@ -36,6 +37,16 @@ struct SimulationRequest {
     IntegratorSettings integrator;
     double output_step = 0;       // s; 0: no time series
     std::vector<WatchLevel> watch;
+    // The keep-out zones and the load's size; null or no zones: no clearance
+    // is computed (quantities with the per_zone record stay at infinity).
+    // Kept alive by the caller for the run.
+    const Obstacles* obstacles = nullptr;
+};
+
+// The load at its nearest to one keep-out zone over the whole run.
+struct ClosestApproach {
+    double time = 0;  // s
+    Approach at;      // clearance (m, < 0: inside the zone) and the points of load and zone
 };
 
 // Records of the quantities of quantity_table(), by their Record bits.
@@ -46,6 +57,7 @@ struct SimulationResult {
     double residual_from = 0;
     PerQuantity<Peak> residual;
     std::vector<std::optional<double>> first_crossing;  // one per WatchLevel
+    std::vector<ClosestApproach> closest_approach;      // one per keep-out zone, in the job's order
     std::vector<Observation> trace;
     IntegrationStats stats;
 };

@@ -9,6 +9,7 @@
 #include <memory>
 #include <sstream>
 
+#include "plumb/clearance.hpp"
 #include "plumb/model.hpp"
 #include "plumb/rigging.hpp"
 #include "plumb/work_budget.hpp"
@@ -68,6 +69,9 @@ WatchLevel dynamic_factor_watch(const Job& job, const StaticLoads& static_loads)
 // Residual swing: the first time after the last move that the load offset
 // exceeds the limit.
 WatchLevel residual_watch(const Job& job) { return {Quantity::load_offset, *job.limits.residual_swing, false, true}; }
+// Clearance: the first time the load comes nearer a keep-out zone than the limit.
+bool clearance_checkable(const Job& job) { return job.limits.clearance && !job.obstacles.zones.empty(); }
+WatchLevel clearance_watch(const Job& job) { return {Quantity::clearance, *job.limits.clearance, true}; }
 
 std::optional<double> crossing_of(const std::vector<WatchLevel>& watch, const LiftPrediction& p,
                                   const WatchLevel& level) {
@@ -177,6 +181,7 @@ std::vector<WatchLevel> watch_levels(const Job& job, const StaticLoads& static_l
     if (design_factor_checkable(job)) w.push_back(design_factor_watch(job));
     if (job.rigging.leg_wll) w.push_back(sling_leg_watch(job));
     if (l.dynamic_factor) w.push_back(dynamic_factor_watch(job, static_loads));
+    if (clearance_checkable(job)) w.push_back(clearance_watch(job));
     w.push_back(slack_watch(Quantity::hoist_rope_tension));
     w.push_back(slack_watch(Quantity::rigging_tension));
     return w;
@@ -232,6 +237,7 @@ LiftPrediction predict_lift(const Job& job, const SwingModel& model, const Model
     request.integrator.absolute_tolerance = job.analysis.absolute_tolerance;
     request.output_step = output_step;
     request.watch = watch;
+    if (!job.obstacles.zones.empty()) request.obstacles = &job.obstacles;
     p.simulation = simulate(model, request);
 
     p.parts_of_line = job.hoist.parts_of_line;
@@ -256,6 +262,35 @@ std::string sheave_words(const Job& job) {
 }
 
 std::string missing_limit(const char* key) { return std::string("no limit given (limits.") + key + ")"; }
+
+// One check over all keep-out zones, at the zone the load comes nearest. The
+// clearance must stay at or above its limit, and it may reach zero or go
+// negative (the load inside a zone), so the utilisation is not a ratio but the
+// way into the band from twice the limit down to the zone: (2 limit -
+// clearance) / limit, 0 % at twice the limit or farther, 100 % at the limit,
+// 200 % touching.
+CheckResult clearance_check(const Job& job, const LiftPrediction& p, std::optional<double> first_exceedance) {
+    const char* words = "least clearance of the load (box corners or sphere) to a keep-out zone";
+    if (!job.limits.clearance)
+        return not_checked("clearance", words, Dimension::length, missing_limit("clearance"));
+    const std::vector<ClosestApproach>& approaches = p.simulation.closest_approach;
+    if (approaches.size() != job.obstacles.zones.size())
+        return not_checked("clearance", words, Dimension::length, "the run computed no clearance to the zones");
+    std::size_t nearest = 0;
+    for (std::size_t k = 1; k < approaches.size(); ++k) {
+        if (approaches[k].at.clearance < approaches[nearest].at.clearance) nearest = k;
+    }
+    const double limit = *job.limits.clearance;
+    CheckResult c = limit_check(job, "clearance", words, Dimension::length, approaches[nearest].at.clearance,
+                                approaches[nearest].time, limit, first_exceedance);
+    set_utilisation(c, std::max(0.0, (2 * limit - c.value) / limit), job.limits.caution_fraction);
+    c.utilisation_basis = "way into the band from twice the limit to the zone: (2 limit - clearance) / limit "
+                          "(100 % = at the limit, 200 % = touching)";
+    const KeepOutZone& zone = job.obstacles.zones[nearest];
+    c.note = "the limit is a least value; nearest zone '" + zone.name + "' (" + zone_shape_words(zone.shape) + ")";
+    if (c.value < 0) c.note += "; the load enters it";
+    return c;
+}
 
 }  // namespace
 
@@ -363,6 +398,9 @@ std::vector<CheckResult> run_checks(const Job& job, const LiftPrediction& p, con
     checks.push_back(taut_check(p, "rigging_taut", "least rigging tension (must stay above zero)",
                                 s.least[Quantity::rigging_tension], p.model.static_loads.rigging_tension,
                                 p.rigging_slack_time));
+    if (!job.obstacles.zones.empty())
+        checks.push_back(clearance_check(job, p, clearance_checkable(job) ? first_at(clearance_watch(job))
+                                                                          : std::nullopt));
     return checks;
 }
 

@@ -13,6 +13,7 @@ inline constexpr std::size_t max_job_file_bytes = 1 << 20;             // 1 MiB:
 inline constexpr std::size_t max_speed_history_bytes = 64u << 20;      // 64 MiB: hours of a 100 Hz log
 inline constexpr std::size_t max_moves = 1000;                         // moves in motion.moves
 inline constexpr std::size_t max_speed_history_rows = 2'000'000;       // 4 h at 100 Hz is 1.44 million
+inline constexpr std::size_t max_keep_out_zones = 100;               // zones in obstacles.zones
 inline constexpr int max_nesting = 32;                                 // levels of [lists] and {maps}
 
 // ---- plausibility (SI units)
@@ -48,7 +49,6 @@ inline constexpr double min_output_step = 1e-3;         // s
 inline constexpr double max_output_step = 10;           // s
 inline constexpr double max_duration_after = 3600;      // s
 inline constexpr double max_dynamic_factor = 10;
-inline constexpr double max_length_limit = 1000;        // m, load_offset and residual_swing limits
 // Slewing (motion.slew); angles in rad: 1 deg = 0.01745 rad.
 inline constexpr double min_slew_radius = 0.1;          // m, slew centre to the suspension point
 inline constexpr double max_slew_radius = 200;          // m
@@ -60,5 +60,8 @@ inline constexpr double min_slew_acceleration = 1e-5;   // rad/s^2
 inline constexpr double max_slew_acceleration = 1;      // rad/s^2
 inline constexpr double min_slew_jerk = 1e-5;           // rad/s^3
 inline constexpr double max_slew_jerk = 10;             // rad/s^3
+inline constexpr double max_length_limit = 1000;        // m, load_offset, residual_swing and clearance limits
+inline constexpr double max_site_extent = 5000;         // m, any coordinate of a keep-out zone, suspension height
+inline constexpr double max_load_size = 100;            // m, each side (or the radius) of load.size
 
 }  // namespace plumb::input

@@ -26,6 +26,7 @@
 #include "input/input_file.hpp"
 #include "input/input_text.hpp"
 #include "input/key_suggestions.hpp"
+#include "input/obstacles_section.hpp"
 #include "input/speed_history.hpp"
 #include "input/yaml_marks.hpp"
 #include "plumb/errors.hpp"
@@ -49,6 +50,7 @@ using KeyList = std::vector<std::string_view>;
 
 const KeyList top_keys{"job", "motion", "hoist", "hook_block", "rigging",
                        "load", "environment", "limits", "analysis", "units", "rope",
+                       "obstacles",  // keep-out zones (input/obstacles_section.hpp)
                        "scatter"};  // uncertain inputs: read by plumb scatter only (docs/scatter.md)
 const KeyList job_keys{"title", "reference"};
 const KeyList motion_keys{"moves", "speed_history", "fixed_support", "emergency_deceleration", "y_moves", "hoist_moves",
@@ -60,12 +62,12 @@ const KeyList hoist_keys{"rope_length", "parts_of_line", "rated_load", "rope_wll
 const KeyList hook_block_keys{"mass"};
 const KeyList rigging_keys{"length", "legs", "leg_angle_from_horizontal", "leg_angle_from_vertical",
                            "leg_length", "spread", "legs_bearing", "leg_wll"};
-const KeyList load_keys{"mass", "radius_of_gyration", "initial_angle", "initial_rate"};
+const KeyList load_keys{"mass", "radius_of_gyration", "initial_angle", "initial_rate", "size"};
 const KeyList environment_keys{"gravity", "wind_speed", "wind_direction", "gust_peak", "gust_start",
                                "gust_duration"};
 const KeyList limits_keys{"hook_rope_angle", "load_angle", "load_offset", "residual_swing",
                           "rope_tension", "sling_leg_tension", "dynamic_factor", "caution_at",
-                          "rope_design_factor"};
+                          "rope_design_factor", "clearance"};
 const KeyList analysis_keys{"duration_after", "output_step", "relative_tolerance",
                             "absolute_tolerance", "integrator", "model"};
 const KeyList rope_keys{"diameter", "fill_factor", "modulus_gpa", "axial_stiffness", "lead_length",
@@ -85,6 +87,9 @@ const std::vector<SectionKeys> all_sections{
     {"environment", &environment_keys}, {"limits", &limits_keys},
     {"analysis", &analysis_keys},       {"rope", &rope_keys},
     {"motion.slew", &slew_keys},
+    {"obstacles", &obstacles_keys},     {"each zone of obstacles.zones", &zone_keys},
+    {"a zone's box", &box_keys},        {"a zone's plane", &plane_keys},
+    {"a zone's cylinder", &cylinder_keys}, {"load.size", &load_size_keys},
 };
 
 // ---------------------------------------------------------------- text
@@ -746,6 +751,12 @@ void read_limits(const Section& s, Limits& lim) {
         lim.rope_design_factor = f;
     }
 
+    lim.clearance = s.optional_quantity("clearance", Dimension::length);
+    if (lim.clearance) {
+        s.check_positive("clearance", *lim.clearance, Dimension::length);
+        s.check_plausible("clearance", *lim.clearance, Dimension::length, 0, max_length_limit, "clearance limit");
+    }
+
     if (const auto c = s.optional_quantity("caution_at", Dimension::ratio)) {
         s.check_range("caution_at", *c, Dimension::ratio, 0, false, 1, false,
                       "a number without % is a fraction: write '90 %' or 0.9");
@@ -899,8 +910,9 @@ Job build_job(Context ctx, const YAML::Node& root) {
         environment.emplace(top.section(*e, environment_keys));
         read_environment(*environment, job.environment);
     }
+    std::optional<Section> limits_section;
     if (const Entry* e = top.find("limits")) {
-        const Section limits = top.section(*e, limits_keys);
+        const Section& limits = limits_section.emplace(top.section(*e, limits_keys));
         read_limits(limits, job.limits);
         if (job.limits.sling_leg_share && !job.rigging.leg_wll)
             limits.fail_at("sling_leg_tension",
@@ -932,6 +944,7 @@ Job build_job(Context ctx, const YAML::Node& root) {
                                "or remove it");
     }
     check_channels(motion, job);
+    read_obstacles(top, load, limits_section ? &*limits_section : nullptr, job);
     if (environment && job.analysis.model != SwingModelChoice::elastic) {
         for (const char* key : {"wind_speed", "wind_direction", "gust_peak", "gust_start", "gust_duration"})
             if (const Entry* e = environment->find(key))

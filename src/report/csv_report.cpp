@@ -1,5 +1,6 @@
 // The CSV time series of a lift check: time, then one column per quantity of
-// the quantity table with a series record, in table order.
+// the quantity table with a series record, in table order (a per-zone quantity,
+// the clearance, only for a job with keep-out zones).
 #include <string>
 
 #include "plumb/report.hpp"
@@ -10,7 +11,7 @@ namespace plumb {
 std::string format_csv(const LiftAssessment& a, UnitSystem u) {
     std::string out = "time [" + json_unit(Dimension::time, u) + "]";
     for (const QuantitySpec& q : quantity_table()) {
-        if (!has_record(q, Record::series) || !reported_for(q, a.job.motion)) continue;
+        if (!has_record(q, Record::series) || !reported_for(q, a.job)) continue;
         out += ',';
         out += q.key;
         out += " [";
@@ -22,7 +23,7 @@ std::string format_csv(const LiftAssessment& a, UnitSystem u) {
     for (const Observation& o : a.prediction.simulation.trace) {
         out += text::printf_string("%.9g", shown_value(o.time, Dimension::time, u));
         for (const QuantitySpec& q : quantity_table()) {
-            if (!has_record(q, Record::series) || !reported_for(q, a.job.motion)) continue;
+            if (!has_record(q, Record::series) || !reported_for(q, a.job)) continue;
             out += ',';
             out += text::printf_string("%.9g", shown_value(series_value(o, q.id, scales), q.dimension, u));
         }

@@ -8,6 +8,7 @@
 #include <ctime>
 #include <optional>
 
+#include "plumb/clearance.hpp"
 #include "plumb/html_document.hpp"
 #include "plumb/report_parts.hpp"
 #include "plumb/model.hpp"
@@ -153,6 +154,48 @@ std::string plan_path_plot(const std::vector<Observation>& trace, UnitSystem u) 
     return render_path_plot(plot);
 }
 
+// The site in plan, ground axes: the suspension point's and the load's paths,
+// the keep-out zones (a plane as its line, the keep-out side on the left
+// walking from the start mark to the end mark) and the closest approach to
+// each zone as a small ring.
+std::string site_plan_plot(const LiftAssessment& a, const std::vector<Observation>& trace, UnitSystem u) {
+    const Obstacles& obstacles = a.job.obstacles;
+    auto shown = [u](double metres) { return shown_value(metres, Dimension::length, u); };
+    PathPlot plot;
+    plot.title = "Site plan: paths and keep-out zones";
+    plot.unit = unit_of(Dimension::length, u);
+    PlotSeries support{"suspension point", {}, {}}, load{"load centre of gravity", {}, {}};
+    for (std::size_t k : path_points(trace.size())) {
+        const Eigen::Vector3d& at = trace[k].support.position;
+        support.x.push_back(shown(at.x()));
+        support.y.push_back(shown(at.y()));
+        load.x.push_back(shown(at.x() + trace[k].load_cg.x()));
+        load.y.push_back(shown(at.y() + trace[k].load_cg.y()));
+    }
+    plot.paths = {std::move(load), std::move(support)};
+    const std::vector<ClosestApproach>& approaches = a.prediction.simulation.closest_approach;
+    for (std::size_t k = 0; k < obstacles.zones.size(); ++k) {
+        const KeepOutZone& z = obstacles.zones[k];
+        switch (z.shape) {
+            case ZoneShape::box:
+                plot.rectangles.push_back({shown(z.low[0]), shown(z.low[1]), shown(z.high[0]), shown(z.high[1]), z.name});
+                break;
+            case ZoneShape::cylinder:
+                plot.circles.push_back({shown(z.low[0]), shown(z.low[1]), shown(z.radius), z.name});
+                break;
+            case ZoneShape::plane:
+                plot.paths.push_back({z.name + " (keep-out side on the left, start to end)",
+                                      {shown(z.low[0]), shown(z.high[0])}, {shown(z.low[1]), shown(z.high[1])}});
+                break;
+        }
+        if (k < approaches.size()) {
+            const Eigen::Vector3d& at = approaches[k].at.load_point;
+            plot.circles.push_back({shown(at.x()), shown(at.y()), shown(0.1), ""});
+        }
+    }
+    return render_path_plot(plot);
+}
+
 // ---- Tables ---------------------------------------------------------------
 
 ReportTable modes_table(const SwingModes& modes) {
@@ -174,11 +217,27 @@ ReportTable peaks_table(const LiftAssessment& a, UnitSystem u) {
     t.caption = "Peaks over the whole simulation (t = 0 to " + seconds(p.end_time) + ")";
     t.columns = {{"quantity"}, {"peak", ColumnAlign::right}, {"at", ColumnAlign::right}, {"static", ColumnAlign::right}};
     for (const QuantitySpec& q : quantity_table()) {
-        if (!has_record(q, Record::peak) || !reported_for(q, a.job.motion)) continue;
+        if (!has_record(q, Record::peak) || !reported_for(q, a.job)) continue;
         const Peak peak = p.peak(q.id);
         const std::optional<double> at_rest = p.static_value(q.id);
         t.add_row({q.words, qty(peak.value, q.dimension, u), "t = " + time_within_validity(peak.time, p.valid_until()),
                    at_rest ? qty(*at_rest, q.dimension, u) : "-"});
+    }
+    return t;
+}
+
+ReportTable clearance_table(const LiftAssessment& a, UnitSystem u) {
+    const LiftPrediction& p = a.prediction;
+    ReportTable t;
+    t.caption = "Closest approach to keep-out zones";
+    t.columns = {{"zone"}, {"shape"}, {"clearance", ColumnAlign::right}, {"at", ColumnAlign::right},
+                 {"load point (x, y, z)"}, {"zone point (x, y, z)"}};
+    const std::vector<KeepOutZone>& zones = a.job.obstacles.zones;
+    for (std::size_t k = 0; k < zones.size() && k < p.simulation.closest_approach.size(); ++k) {
+        const ClosestApproach& c = p.simulation.closest_approach[k];
+        t.add_row({zones[k].name, zone_shape_words(zones[k].shape), qty(c.at.clearance, Dimension::length, u),
+                   "t = " + time_within_validity(c.time, p.valid_until()), point_text(c.at.load_point, u),
+                   point_text(c.at.zone_point, u)});
     }
     return t;
 }
@@ -226,6 +285,10 @@ std::string format_html_report(const LiftAssessment& a, const std::vector<Observ
                       ": values after that time are not predictions.");
     }
     doc.table(peaks_table(a, units));
+    if (!job.obstacles.zones.empty()) {
+        doc.table(clearance_table(a, units));
+        doc.paragraph(clearance_basis_words(job.obstacles, units));
+    }
 
     doc.begin_section("Natural periods");
     if (p.model.modes) doc.table(modes_table(*p.model.modes));
@@ -245,6 +308,13 @@ std::string format_html_report(const LiftAssessment& a, const std::vector<Observ
                    "The load's path relative to the support: how far it swings out along the travel and how much it rises. The vertical scale is stretched.");
         if (path_leaves_the_plane(trace)) {
             doc.figure(plan_path_plot(trace, units), "The load's path relative to the support, seen from above.");
+        }
+        if (!job.obstacles.zones.empty()) {
+            doc.figure(site_plan_plot(a, trace, units),
+                       "The suspension point and the load's centre of gravity seen from above in ground axes, with "
+                       "the keep-out zones (boxes and cylinders in plan, a vertical plane as its line) and, as a small "
+                       "ring, the load point nearest each zone. Heights are not shown: see the closest approach "
+                       "table. " + clearance_basis_words(job.obstacles, units));
         }
     }
 

@@ -4,6 +4,7 @@
 
 #include <nlohmann/json.hpp>
 
+#include "plumb/clearance.hpp"
 #include "plumb/report.hpp"
 #include "plumb/report_facts.hpp"
 
@@ -132,6 +133,53 @@ json units_json(UnitSystem u) {
 }
 
 
+json point_json(const Eigen::Vector3d& p, UnitSystem u) {
+    return {{"value", {shown_value(p.x(), Dimension::length, u), shown_value(p.y(), Dimension::length, u),
+                       shown_value(p.z(), Dimension::length, u)}},
+            {"unit", json_unit(Dimension::length, u)}};
+}
+
+// The keep-out zones as given and the load's closest approach to each.
+json obstacles_json(const LiftAssessment& a, UnitSystem u) {
+    const Obstacles& o = a.job.obstacles;
+    const std::vector<ClosestApproach>& approaches = a.prediction.simulation.closest_approach;
+    json zones = json::array();
+    for (std::size_t k = 0; k < o.zones.size() && k < approaches.size(); ++k) {
+        const KeepOutZone& z = o.zones[k];
+        const ClosestApproach& c = approaches[k];
+        json zone = {{"name", z.name}, {"shape", zone_shape_words(z.shape)}};
+        const Eigen::Vector3d low(z.low[0], z.low[1], z.low[2]), high(z.high[0], z.high[1], z.high[2]);
+        if (z.shape == ZoneShape::box) {
+            zone["low_corner"] = point_json(low, u);
+            zone["high_corner"] = point_json(high, u);
+        } else if (z.shape == ZoneShape::plane) {
+            zone["line_from"] = point_json(low, u);  // the keep-out side is on the left walking from -> to
+            zone["line_to"] = point_json(high, u);
+            zone["keep_out_side"] = "left of line_from -> line_to";
+        } else {
+            zone["centre_bottom"] = point_json(low, u);
+            zone["top"] = quantity_json(z.high[2], Dimension::length, u);
+            zone["radius"] = quantity_json(z.radius, Dimension::length, u);
+        }
+        zone["closest_approach"] = {
+            {"clearance", quantity_json(c.at.clearance, Dimension::length, u)},
+            {"time", c.time},
+            {"load_point", point_json(c.at.load_point, u)},
+            {"zone_point", point_json(c.at.zone_point, u)},
+        };
+        zones.push_back(zone);
+    }
+    json load_size = o.load_size.radius > 0
+                         ? json{{"radius", quantity_json(o.load_size.radius, Dimension::length, u)}}
+                         : json{{"length", quantity_json(o.load_size.length, Dimension::length, u)},
+                                {"width", quantity_json(o.load_size.width, Dimension::length, u)},
+                                {"height", quantity_json(o.load_size.height, Dimension::length, u)}};
+    return {{"suspension_height", quantity_json(o.suspension_height, Dimension::length, u)},
+            {"load_size", load_size},
+            {"basis", clearance_basis_words(o, u)},
+            {"zones", zones}};
+}
+
 }  // namespace
 
 std::string format_json(const LiftAssessment& a, UnitSystem u) {
@@ -140,7 +188,7 @@ std::string format_json(const LiftAssessment& a, UnitSystem u) {
 
     json peaks = json::object();
     for (const QuantitySpec& q : quantity_table()) {
-        if (!has_record(q, Record::peak) || !reported_for(q, a.job.motion)) continue;
+        if (!has_record(q, Record::peak) || !reported_for(q, a.job)) continue;
         peaks[q.key] = peak_json(p.peak(q.id), q.dimension, u);
         if (has_record(q, Record::least)) {
             peaks[std::string("least_") + q.key] = peak_json(s.least[q.id], q.dimension, u);
@@ -215,11 +263,12 @@ std::string format_json(const LiftAssessment& a, UnitSystem u) {
         {"slack", slack_statements(p)},
         {"peaks", peaks},
         {"residual", residual},
+        {"obstacles", a.job.obstacles.zones.empty() ? json(nullptr) : obstacles_json(a, u)},
         {"checks", checks},
         {"checks_not_made", not_checked.size()},
         {"not_checked", not_checked},
         {"rated_load", rated_load},
-        {"limits_not_given", limits_not_given(a.job.limits)},
+        {"limits_not_given", limits_not_given(a.job.limits, !a.job.obstacles.zones.empty())},
         {"overall_verdict", verdict_word(a.overall)},
         {"overall_line", overall_line(a)},
         {"overall_explanation", verdict_explanation(a)},

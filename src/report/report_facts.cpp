@@ -4,6 +4,7 @@
 #include <cmath>
 #include <numbers>
 
+#include "plumb/clearance.hpp"
 #include "plumb/motion.hpp"
 #include "plumb/text_layout.hpp"
 
@@ -58,6 +59,7 @@ constexpr LimitRow limit_table[] = {
     {"sling_leg_share", "sling leg share", &Limits::sling_leg_share, Dimension::ratio},
     {"dynamic_factor", "swing dynamic factor", &Limits::dynamic_factor, Dimension::ratio},
     {"rope_design_factor", "rope design factor", &Limits::rope_design_factor, Dimension::ratio},
+    {"clearance", "clearance to keep-out zones", &Limits::clearance, Dimension::length, true},
 };
 
 std::string slack_statement(const LiftPrediction& p, const char* what, double t) {
@@ -107,9 +109,10 @@ SlewDigest digest_slew(const SlewSpec& slew) {
 
 std::span<const LimitRow> limit_rows() { return limit_table; }
 
-std::vector<std::string> limits_not_given(const Limits& l) {
+std::vector<std::string> limits_not_given(const Limits& l, bool has_keep_out_zones) {
     std::vector<std::string> out;
     for (const LimitRow& row : limit_table) {
+        if (row.keep_out_only && !has_keep_out_zones) continue;
         if (!(l.*row.member)) out.push_back(row.words);
     }
     return out;
@@ -180,6 +183,38 @@ std::string mode_shape_words(double load_per_hook_angle) {
     return "load does not swing";
 }
 
+std::string clearance_basis_words(const Obstacles& o, UnitSystem u) {
+    const LoadSize& size = o.load_size;
+    std::string out = "Clearance is measured in ground axes (x, y in plan as the travel axes, z up from the floor "
+                      "datum of the zones' heights; the suspension point at " +
+                      text::qty(o.suspension_height, Dimension::length, u) + ") ";
+    if (size.radius > 0) {
+        out += "from the surface of a sphere of radius " + text::qty(size.radius, Dimension::length, u) +
+               " about the load's centre of gravity.";
+    } else {
+        out += "from the 8 corners of a box " + text::qty(size.length, Dimension::length, u) + " long, " +
+               text::qty(size.width, Dimension::length, u) + " wide and " +
+               text::qty(size.height, Dimension::length, u) +
+               " high, centred on the load's centre of gravity; its height lies along the rigging line and it "
+               "tilts with it (hanging plumb, the length lies along x and the width along y; it does not turn "
+               "about the rigging line). A zone's edge or face that reaches between the corners is not seen: "
+               "choose the clearance limit with that in mind.";
+    }
+    out += " Negative clearance: the load enters the zone.";
+    return out;
+}
+
+std::string point_text(const Eigen::Vector3d& p, UnitSystem u) {
+    std::string out = "(";  // built by appending: GCC 12 warns falsely (-Wrestrict) on "(" + string
+    for (int i = 0; i < 3; ++i) {
+        if (i > 0) out += ", ";
+        out += text::num(shown_value(p[i], Dimension::length, u));
+    }
+    out += ") ";
+    out += unit_symbol(Dimension::length, u);
+    return out;
+}
+
 double frequency_hz(const SwingMode& m) { return m.angular_frequency / (2.0 * std::numbers::pi); }
 
 namespace {
@@ -212,6 +247,23 @@ std::string job_units_text(JobUnits declared) {
 std::string parts_of_line_text(int parts) {
     return std::to_string(parts) + (parts == 1 ? " part of line" : " parts of line");
 }
+
+namespace {
+
+// The zones by name and shape, the load's outline and the height datum.
+std::string keep_out_text(const Obstacles& o, UnitSystem u) {
+    std::vector<std::string> zones;
+    for (const KeepOutZone& z : o.zones) zones.push_back(z.name + " (" + zone_shape_words(z.shape) + ")");
+    const LoadSize& size = o.load_size;
+    const std::string outline =
+        size.radius > 0 ? "a sphere of radius " + qty(size.radius, Dimension::length, u)
+                        : "a box " + qty(size.length, Dimension::length, u) + " x " +
+                              qty(size.width, Dimension::length, u) + " x " + qty(size.height, Dimension::length, u);
+    return text::join(zones, ", ") + "; load outline " + outline + "; suspension point " +
+           qty(o.suspension_height, Dimension::length, u) + " above the floor datum";
+}
+
+}  // namespace
 
 std::vector<InputFact> input_facts(const LiftAssessment& a, UnitSystem u) {
     const Job& job = a.job;
@@ -276,6 +328,7 @@ std::vector<InputFact> input_facts(const LiftAssessment& a, UnitSystem u) {
     }
     out.push_back({"Load", load, "load"});
     out.push_back({"Gravity", qty(job.environment.gravity, Dimension::acceleration, u), "environment"});
+    if (!job.obstacles.zones.empty()) out.push_back({"Keep-out zones", keep_out_text(job.obstacles, u), "obstacles"});
     return out;
 }
 

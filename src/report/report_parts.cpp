@@ -68,6 +68,7 @@ ReportTable limits_table(const LiftAssessment& a, UnitSystem u) {
     t.caption = "Limits";
     t.columns = {{"limit"}, {"value", ColumnAlign::right}, {"in the job file"}};
     for (const LimitRow& row : limit_rows()) {
+        if (row.keep_out_only && job.obstacles.zones.empty()) continue;
         const std::optional<double>& value = job.limits.*(row.member);
         // The row's own line where the file's key has the row's name, else the section's lines.
         const std::string key = std::string("limits.") + row.key;
@@ -171,6 +172,10 @@ void check_explanations(HtmlDocument& doc, const std::vector<CheckResult>& check
     }
     doc.paragraph("Utilisation: the value as a share of its limit; a value above " + percent(caution_fraction) +
                   " of its limit is a CAUTION, above 100 % a FAIL.");
+    for (const CheckResult& c : checks) {
+        if (!c.utilisation_basis.empty() && c.verdict != Verdict::not_checked)
+            doc.paragraph("Utilisation of " + c.name + " has its own basis: " + c.utilisation_basis + ".");
+    }
 }
 
 VerdictBanner assessment_banner(const LiftAssessment& a, UnitSystem u) {

@@ -5,6 +5,7 @@
 #include <string>
 #include <vector>
 
+#include "plumb/clearance.hpp"
 #include "plumb/report.hpp"
 #include "plumb/report_facts.hpp"
 #include "plumb/sparkline.hpp"
@@ -122,7 +123,7 @@ std::string peaks_section(const LiftAssessment& a, UnitSystem u) {
     const SimulationResult& s = p.simulation;
     TextTable t({"quantity", "peak", "at t", "static", "least"}, "lrrrr");
     for (const QuantitySpec& q : quantity_table()) {
-        if (!has_record(q, Record::peak) || !reported_for(q, a.job.motion)) continue;
+        if (!has_record(q, Record::peak) || !reported_for(q, a.job)) continue;
         const Peak peak = p.peak(q.id);
         const std::optional<double> at_rest = p.static_value(q.id);
         std::string least;
@@ -177,6 +178,24 @@ std::string residual_section(const LiftAssessment& a, UnitSystem u) {
     }
     out += wrap("No damping is modelled: in the model this swing continues until the next move.",
                 "  ", "  ");
+    out += past_validity_note(p);
+    return out;
+}
+
+// The closest approach of the load to each keep-out zone, when and where.
+std::string clearance_section(const LiftAssessment& a, UnitSystem u) {
+    const std::vector<KeepOutZone>& zones = a.job.obstacles.zones;
+    if (zones.empty()) return "";
+    const LiftPrediction& p = a.prediction;
+    std::string out = heading("Closest approach to keep-out zones");
+    TextTable t({"zone", "shape", "clearance", "at t", "load point (x, y, z)", "zone point (x, y, z)"}, "llrrll");
+    for (std::size_t k = 0; k < zones.size() && k < p.simulation.closest_approach.size(); ++k) {
+        const ClosestApproach& c = p.simulation.closest_approach[k];
+        t.add({zones[k].name, zone_shape_words(zones[k].shape), qty(c.at.clearance, Dimension::length, u),
+               when(c.time, p), point_text(c.at.load_point, u), point_text(c.at.zone_point, u)});
+    }
+    out += t.render();
+    out += wrap(clearance_basis_words(a.job.obstacles, u), "  ", "  ");
     out += past_validity_note(p);
     return out;
 }
@@ -236,7 +255,7 @@ std::string checks_section(const LiftAssessment& a, UnitSystem u) {
                     "CHECKED: the check could not be made and is not a pass.",
                     "  ", "  ");
     }
-    const std::vector<std::string> missing = limits_not_given(a.job.limits);
+    const std::vector<std::string> missing = limits_not_given(a.job.limits, !a.job.obstacles.zones.empty());
     if (!missing.empty()) {
         out += wrap("No limit given in the job for: " + join(missing, ", ") +
                         " (any default a check above applies instead is stated in its note).",
@@ -273,6 +292,7 @@ std::string format_summary(const LiftAssessment& a, UnitSystem units) {
     out += modes_table(a.prediction.model.modes);
     out += peaks_section(a, units);
     out += residual_section(a, units);
+    out += clearance_section(a, units);
     out += checks_section(a, units);
     for (const std::string& s : slack) out += wrap("SLACK: " + s, "  !!! ", "      ");
 

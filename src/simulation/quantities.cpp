@@ -125,6 +125,9 @@ constexpr QuantitySpec table[] = {
     derived(Quantity::rigging_dynamic_factor, "rigging_dynamic_factor", "swing dynamic factor, rigging",
             Dimension::ratio, peak, Quantity::rigging_tension,
             [](double v, const LiftScales& s) { return v / s.static_loads.rigging_tension; }, false),
+    // Filled by the simulation from the job's keep-out zones (clearance.hpp).
+    simulated(Quantity::clearance, "clearance", "least clearance to a keep-out zone", "", Dimension::length,
+              series | crossing | per_zone, [](const Observation& o) { return o.clearance; }),
 };
 
 static_assert(std::size(table) == quantity_count);

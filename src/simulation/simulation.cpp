@@ -58,6 +58,7 @@ struct SimulationWorkspace::Buffers {
     std::array<double, samples_per_step + 1> times{};
     std::array<Observation, samples_per_step + 1> samples{};
     PerQuantity<SampleValues> values{};  // of the recorded quantities at the samples
+    std::vector<SampleValues> zone_values;  // clearance to each keep-out zone at the samples
     Buffers() { add_trackers(whole_run, residual); }
 };
 
@@ -74,11 +75,17 @@ public:
              SimulationResult& result, Buffers& buffers)
         : model_(model), request_(request), residual_from_(residual_from), result_(result),
           x_(buffers.x), times_(buffers.times), samples_(buffers.samples), values_(buffers.values),
-          recorded_(buffers.recorded), whole_run_(buffers.whole_run), residual_(buffers.residual) {
+          recorded_(buffers.recorded), whole_run_(buffers.whole_run), residual_(buffers.residual),
+          zone_values_(buffers.zone_values) {
         x_.resize(model.state_size());
         for (ExtremeTracker& t : whole_run_) t.seen = false;
         for (ExtremeTracker& t : residual_) t.seen = false;
         result.first_crossing.assign(request.watch.size(), std::nullopt);
+        const std::size_t zones = request.obstacles != nullptr ? request.obstacles->zones.size() : 0;
+        ClosestApproach none;  // beaten by the first step
+        none.at.clearance = std::numeric_limits<double>::infinity();
+        result.closest_approach.assign(zones, none);
+        zone_values_.resize(zones);
     }
 
     void on_step(const DenseStep& step) override {
@@ -99,6 +106,7 @@ public:
         }
         step_seen_ = true;
         for (ExtremeTracker& tracker : whole_run_) update(tracker);
+        update_approaches();
         // The motion's end is a break, so a step lies wholly before or after it.
         if (step.t_begin >= residual_from_) {
             for (ExtremeTracker& tracker : residual_) update(tracker);
@@ -113,7 +121,9 @@ public:
 private:
     Observation observe(double t) {
         step_->state_at(t, x_);
-        return model_.observe(t, regime_, x_);
+        Observation o = model_.observe(t, regime_, x_);
+        if (request_.obstacles != nullptr) o.clearance = least_clearance(o, *request_.obstacles);
+        return o;
     }
     double value_at(double t, Quantity q) { return quantity_value(observe(t), q); }
     // A quantity at sample j of this step: read once per step if it has records.
@@ -124,17 +134,55 @@ private:
     }
 
     void update(ExtremeTracker& tracker) {
-        std::array<double, samples_per_step + 1> scores;
-        for (int j = 0; j <= samples_per_step; ++j) scores[j] = tracker.score(values_[tracker.quantity][j]);
-        auto score_at = [&](int j) { return scores[j]; };
+        Peak& record = (result_.*tracker.record)[tracker.quantity];
+        const double so_far = tracker.seen ? tracker.score(record.value) : -std::numeric_limits<double>::infinity();
+        const Peak candidate = step_extreme(values_[tracker.quantity], tracker.minimum, so_far,
+                                            [&](double t) { return value_at(t, tracker.quantity); });
+        if (!tracker.seen || tracker.score(candidate.value) > so_far) {
+            record = candidate;
+            tracker.seen = true;
+        }
+    }
+
+    // The closest approach to each keep-out zone: the least clearance by the
+    // same sampling and refinement as the table's least values, and where the
+    // load and the zone are at that time.
+    void update_approaches() {
+        if (zone_values_.empty()) return;
+        const Obstacles& obstacles = *request_.obstacles;
+        for (int j = 0; j <= samples_per_step; ++j) {
+            const LoadOutline load = load_outline(samples_[j], obstacles);
+            for (std::size_t k = 0; k < zone_values_.size(); ++k)
+                zone_values_[k][j] = approach(load, obstacles.zones[k]).clearance;
+        }
+        for (std::size_t k = 0; k < zone_values_.size(); ++k) {
+            const KeepOutZone& zone = obstacles.zones[k];
+            ClosestApproach& record = result_.closest_approach[k];
+            const double so_far = -record.at.clearance;
+            const Peak candidate = step_extreme(zone_values_[k], true, so_far, [&](double t) {
+                return approach(load_outline(observe(t), obstacles), zone).clearance;
+            });
+            if (-candidate.value > so_far) {
+                record.time = candidate.time;
+                record.at = approach(load_outline(observe(candidate.time), obstacles), zone);
+            }
+        }
+    }
+
+    // The extreme (largest, or smallest when minimum) of one quantity in this
+    // step, from its values at the samples. so_far is the record's score
+    // (larger is better; -infinity: none yet); value_at reads the quantity
+    // from the interpolant.
+    template <class ValueAt>
+    Peak step_extreme(const SampleValues& values, bool minimum, double so_far, ValueAt value_at) const {
+        auto score_at = [&](int j) { return minimum ? -values[j] : values[j]; };
+        auto natural = [&](double score) { return minimum ? -score : score; };
         int best = 0;
         for (int j = 1; j <= samples_per_step; ++j) {
             if (score_at(j) > score_at(best)) best = j;
         }
         const double sampled = score_at(best);
-        Peak candidate{tracker.score(sampled), times_[best]};
-        Peak& record = (result_.*tracker.record)[tracker.quantity];
-        const double so_far = tracker.seen ? tracker.score(record.value) : -std::numeric_limits<double>::infinity();
+        Peak candidate{natural(sampled), times_[best]};
         // A parabola through the best sample and its neighbours estimates how far
         // the true extremum between samples rises above it. Refine (Brent's method
         // on the interpolant) only where that could beat the record; the margin
@@ -156,15 +204,12 @@ private:
             if (hi > lo) estimate = std::max(sampled, vertex_value);
         }
         if (hi > lo && estimate + 0.5 * (estimate - sampled) + 1e-12 * std::fabs(so_far) >= so_far) {
-            auto negative_score = [&](double t) { return -tracker.score(value_at(t, tracker.quantity)); };
+            auto negative_score = [&](double t) { return minimum ? value_at(t) : -value_at(t); };
             const auto [t, f] = boost::math::tools::brent_find_minima(negative_score, lo, hi,
                                                                       std::numeric_limits<double>::digits / 2);
-            if (-f > sampled) candidate = {tracker.score(-f), t};
+            if (-f > sampled) candidate = {natural(-f), t};
         }
-        if (!tracker.seen || tracker.score(candidate.value) > so_far) {
-            record = candidate;
-            tracker.seen = true;
-        }
+        return candidate;
     }
 
     // First time in this step the watched level is reached, found by bisection
@@ -205,6 +250,7 @@ private:
     const std::vector<Quantity>& recorded_;
     std::vector<ExtremeTracker>& whole_run_;
     std::vector<ExtremeTracker>& residual_;
+    std::vector<SampleValues>& zone_values_;  // clearance to each keep-out zone at the samples
     const DenseStep* step_ = nullptr;
     bool step_seen_ = false;
     Regime regime_;  // of the current step
