@@ -125,11 +125,15 @@ private:
 }  // namespace
 
 std::unique_ptr<SwingModel> make_elastic_swing_model(const Job& job) {
+    return make_elastic_swing_model(job, SupportMotion::from_spec(job.motion));
+}
+
+std::unique_ptr<SwingModel> make_elastic_swing_model(const Job& job, SupportMotion x_travel) {
     auto channel = [](const std::vector<Move>& moves) {
         return moves.empty() ? SupportMotion::at_rest() : SupportMotion::from_moves(moves);
     };
-    SupportPath path(SupportMotion::from_spec(job.motion), channel(job.motion.y_moves),
-                     channel(job.motion.hoist_moves), job.hoist.rope_length);
+    SupportPath path(std::move(x_travel), channel(job.motion.y_moves), channel(job.motion.hoist_moves),
+                     job.hoist.rope_length);
     return std::make_unique<ElasticSwingModel>(parameters_from_job(job), std::move(path));
 }
 
