@@ -12,6 +12,8 @@
 #include "plumb/errors.hpp"
 
 #ifdef PLUMB_MPI
+#define OMPI_SKIP_MPICXX 1  // the C interface only: no deprecated C++ bindings
+#define MPICH_SKIP_MPICXX 1
 #include <mpi.h>
 #endif
 
