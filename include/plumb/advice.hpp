@@ -2,7 +2,10 @@
 // accelerations, the fastest passing swing-free variant of the planned motion
 // (whole-period S-curves and input-shaped moves), the worst-case emergency
 // stop, and plain guidance. Every answer comes from full simulations of the
-// rigid model checked against the job's limits. See docs/advice.md.
+// job's model (rigid or elastic, from the model factory) checked against the
+// job's limits; the shaped and whole-period moves and the period guidance need
+// the rigid model's swing modes (an InputError naming analysis.model
+// otherwise). See docs/advice.md.
 #pragma once
 
 #include <optional>

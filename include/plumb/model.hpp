@@ -54,5 +54,8 @@ public:
 
 // The one place that names a concrete model: the model a job asks for.
 std::unique_ptr<SwingModel> make_swing_model(const Job& job);
+// The same model with another travel along x (advice tries shaped moves,
+// scaled moves and emergency stops); the other channels as the job plans them.
+std::unique_ptr<SwingModel> make_swing_model(const Job& job, SupportMotion x_travel);
 
 }  // namespace plumb

@@ -95,6 +95,11 @@ struct FailureEstimate {
     // and false when the level limit stopped it before reaching failure.
     int levels = 0;
     bool reached_failure = true;
+    // Subset simulation only: a level made no step toward failure (every
+    // sample at or below its threshold, or the threshold not lower than the
+    // last): the limit state is flat there, e.g. a margin the inputs do not
+    // change. No estimate (probability NaN).
+    bool flat = false;
 };
 
 FailureEstimate monte_carlo_failure(const LimitState& g, std::size_t dimensions, std::size_t samples,
@@ -107,7 +112,17 @@ struct SubsetSettings {
     int max_levels = 20;
 };
 
+// The same limit state evaluated on many points at once (model runs that may
+// run on many threads or processes): one value per point, in their order.
+using BatchLimitState = std::function<std::vector<double>(const std::vector<std::vector<double>>& points)>;
+
 // Subset simulation with the modified Metropolis algorithm of Au & Beck.
+// Every random number is drawn in one fixed order, and the limit state is
+// asked for whole batches (the first level, then one Metropolis step of every
+// chain at a time), so the result does not depend on how a batch is evaluated.
+FailureEstimate subset_simulation(const BatchLimitState& g, std::size_t dimensions, const SubsetSettings& settings,
+                                  std::uint64_t seed);
+// The same for a limit state evaluated one point at a time.
 FailureEstimate subset_simulation(const LimitState& g, std::size_t dimensions, const SubsetSettings& settings,
                                   std::uint64_t seed);
 

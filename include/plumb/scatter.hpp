@@ -6,6 +6,7 @@
 #include <string>
 #include <vector>
 
+#include "plumb/process_group.hpp"
 #include "plumb/sampling.hpp"
 #include "plumb/sweep.hpp"
 
@@ -31,12 +32,35 @@ struct CheckFailure {
     double probability = 0;
     Interval wilson, clopper_pearson;
 };
+struct ScatterSettings {
+    std::size_t samples = 1000;  // Latin hypercube samples
+    std::uint64_t seed = 1;
+    int threads = 1;
+    // Also estimate each check's probability of failing by subset simulation
+    // (for probabilities far below 1 / samples).
+    bool subset = false;
+    std::vector<std::string> subset_checks;  // empty: every check made
+    std::size_t level_samples = 1000;        // N per level (p0 = 0.1: a multiple of 10)
+};
+
+// A check's probability of failing by subset simulation: the limit state is
+// the check's unused share of its limit, 1 - utilisation, in the standard
+// normal space of the uncertain inputs (each mapped through its distribution).
+struct SmallProbability {
+    std::string check;
+    FailureEstimate estimate;
+    std::size_t refused = 0;  // runs refused by the job file or not finished (counted as failing)
+};
+
 struct ScatterResult {
+    ScatterSettings settings;
     std::vector<UncertainInput> inputs;
     SweepResult cases;
     std::vector<PeakSpread> peaks;
     std::vector<CheckFailure> checks;
     std::size_t input_errors = 0;  // samples the job file refused (counted as failures of every check)
+    std::vector<SmallProbability> small;  // subset simulation, when asked for
+    std::size_t small_model_runs = 0;     // distinct model runs of all subset simulations together
 };
 
 // Percentile by linear interpolation between order statistics (Hyndman &
@@ -44,6 +68,11 @@ struct ScatterResult {
 double sample_percentile(std::vector<double> values, double p);
 
 ScatterResult run_scatter(const std::string& job_path, std::size_t samples, std::uint64_t seed, int threads);
+// With subset simulation if asked for, spread over the processes of group:
+// the samples are drawn alike on every process, each runs its share, and the
+// statistics are made on the first process (the others return the inputs only).
+ScatterResult run_scatter(const std::string& job_path, const ScatterSettings& settings,
+                          const ProcessGroup& group = single_process());
 std::string format_scatter(const ScatterResult& r);
 
 }  // namespace plumb

@@ -1,6 +1,9 @@
-// Advice: every answer is a full simulation of the rigid model with another
-// support motion, checked against the job's own limits by run_checks().
-#include "plumb/rigid_pendulum.hpp"
+// Advice: every answer is a full simulation of the job's model (from the
+// model factory) with another support motion, checked against the job's own
+// limits by run_checks(). Shaped and whole-period moves and the period
+// guidance need the model's linearised swing modes, which only the rigid model
+// gives; for another model they are refused with an input error naming
+// analysis.model.
 #include "plumb/advice.hpp"
 
 #include <algorithm>
@@ -8,6 +11,7 @@
 #include <utility>
 
 #include "plumb/errors.hpp"
+#include "plumb/job_file.hpp"
 #include "plumb/model.hpp"
 #include "plumb/shaped_motion.hpp"
 #include "plumb/shapers.hpp"
@@ -15,19 +19,29 @@
 namespace plumb {
 namespace {
 
-RigidPendulumModel model_with_motion(const Job& job, SupportMotion motion) {
-    return RigidPendulumModel(RigidPendulumParameters::from_job(job), std::move(motion), job.load.initial_angle,
-                              job.load.initial_rate, job.analysis.absolute_tolerance);
-}
-
 bool is_skipped(const std::string& name, const std::vector<std::string>& skipped) {
     return std::find(skipped.begin(), skipped.end(), name) != skipped.end();
 }
 
-SwingModes slow_and_fast_modes(const Job& job) {
+SwingModes slow_and_fast_modes(const Job& job, const char* what) {
     const ModelDescription d = describe_lift_model(job);
-    if (!d.modes) throw NumericalError("the model gives no swing modes to design shaped moves from", 0.0);
+    if (!d.modes) {
+        throw InputError(job_key_location(job, "analysis.model"),
+                         std::string(what) + " needs the linearised swing modes, which the " + d.name +
+                             " does not give; use analysis.model: rigid for it");
+    }
     return *d.modes;
+}
+
+// The slow swing period that sets the scan spacing of the stop search: the
+// model's own, or for a model without modes that of the rigid model of the
+// same lift (the same hook height and masses; only the spacing comes from it,
+// every point is a simulation of the job's model).
+double scan_period(const Job& job) {
+    if (const std::optional<SwingModes> modes = describe_lift_model(job).modes) return modes->first.period;
+    Job rigid = job;
+    rigid.analysis.model = SwingModelChoice::rigid;
+    return slow_and_fast_modes(rigid, "the stop search's scan spacing").first.period;
 }
 
 void require_moves(const Job& job, const char* what) {
@@ -40,10 +54,10 @@ void require_moves(const Job& job, const char* what) {
 
 MotionOutcome assess_motion(const Job& job, const SupportMotion& motion, std::string label,
                             const std::vector<std::string>& skipped) {
-    const RigidPendulumModel model = model_with_motion(job, motion);
-    const ModelDescription description = describe_for_lift(model);
+    const std::unique_ptr<SwingModel> model = make_swing_model(job, motion);
+    const ModelDescription description = describe_for_lift(*model);
     const std::vector<WatchLevel> watch = watch_levels(job, description.static_loads);
-    const LiftPrediction p = predict_lift(job, model, description, watch, 0.0);
+    const LiftPrediction p = predict_lift(job, *model, description, watch, 0.0);
 
     MotionOutcome o;
     o.label = std::move(label);
@@ -115,7 +129,7 @@ std::vector<MotionOutcome> motion_options(const Job& job, int max_periods) {
     std::vector<MotionOutcome> options;
     options.push_back(assess_motion(job, planned, "planned"));
 
-    const SwingModes modes = slow_and_fast_modes(job);
+    const SwingModes modes = slow_and_fast_modes(job, "shaped and whole-period moves");
     if (!job.motion.moves.empty()) {
         for (int n = 1; n <= max_periods; ++n) {
             std::vector<Move> moves;
@@ -155,7 +169,7 @@ std::optional<std::size_t> fastest_passing(const std::vector<MotionOutcome>& opt
 StopAdvice worst_case_stop(const Job& job, const SupportMotion& planned, double deceleration, double lo, double hi,
                            int points_per_period) {
     const std::vector<std::string> skipped{"residual_swing"};
-    const double period = slow_and_fast_modes(job).first.period;
+    const double period = scan_period(job);
     const int scan = std::max(9, static_cast<int>(std::ceil((hi - lo) / period * points_per_period)) + 1);
     auto outcome_at = [&](double t) {
         return assess_motion(job, stop_motion(planned, t, deceleration), "emergency stop", skipped);
@@ -171,7 +185,7 @@ StopAdvice worst_case_stop(const Job& job, const SupportMotion& planned, double 
 PeriodGuidance period_guidance(const Job& job) {
     require_moves(job, "the period guidance");
     PeriodGuidance g;
-    g.slow_period = slow_and_fast_modes(job).first.period;
+    g.slow_period = slow_and_fast_modes(job, "the period guidance").first.period;
     const Move& first = job.motion.moves.front();
     const double reached = SupportMotion::from_moves({first}).peak_speed();
     g.acceleration_time = reached / first.acceleration;  // speed change over peak acceleration
@@ -185,7 +199,7 @@ PeriodGuidance period_guidance(const Job& job) {
     auto period_at = [&](double rope) {
         Job j = job;
         j.hoist.rope_length = rope;
-        return slow_and_fast_modes(j).first.period;
+        return slow_and_fast_modes(j, "the period guidance").first.period;
     };
     double a = 0.2, b = 300.0;
     if (period_at(a) <= target && period_at(b) >= target) {

@@ -3,7 +3,9 @@
 
 #include <algorithm>
 #include <cmath>
+#include <limits>
 #include <numbers>
+#include <stdexcept>
 
 #include <boost/math/special_functions/beta.hpp>
 
@@ -242,12 +244,12 @@ double chain_correlation_factor(const std::vector<std::vector<bool>>& chains, do
     return gamma;
 }
 
-// One modified Metropolis step (Au & Beck sec. 3): each component moves by
-// itself with the standard normal's acceptance ratio; the whole candidate is
-// kept only if it stays in the current intermediate failure region.
-Sample metropolis_step(const Sample& current, const LimitState& g, double threshold, double spread,
-                       RandomStream& stream, std::size_t& evaluations) {
-    Sample candidate = current;
+// A modified Metropolis candidate (Au & Beck sec. 3): each component moves by
+// itself with the standard normal's acceptance ratio. Whether the whole
+// candidate is kept (it must stay in the current intermediate failure region)
+// is decided once the limit state is known there. false: no component moved.
+bool propose(const Sample& current, double spread, RandomStream& stream, Sample& candidate) {
+    candidate.u = current.u;
     bool moved = false;
     for (double& x : candidate.u) {
         const double proposed = x + spread * stream.standard_normal();
@@ -257,15 +259,61 @@ Sample metropolis_step(const Sample& current, const LimitState& g, double thresh
             moved = true;
         }
     }
-    if (!moved) return current;
-    candidate.g = g(candidate.u);
-    ++evaluations;
-    return candidate.g <= threshold ? candidate : current;
+    return moved;
+}
+
+std::vector<double> evaluate(const BatchLimitState& g, const std::vector<std::vector<double>>& points,
+                             std::size_t& evaluations) {
+    if (points.empty()) return {};
+    std::vector<double> values = g(points);
+    if (values.size() != points.size()) throw std::logic_error("a batch limit state must give one value per point");
+    evaluations += points.size();
+    return values;
+}
+
+// The chains of the next level, grown in lock step: one Metropolis step of
+// every chain per batch, each chain started from one seed (seeds in order).
+std::vector<std::vector<Sample>> grow_chains(const std::vector<const Sample*>& seeds, std::size_t length,
+                                             const BatchLimitState& g, double threshold, double spread,
+                                             RandomStream& stream, std::size_t& evaluations) {
+    std::vector<std::vector<Sample>> chains;
+    for (const Sample* seed : seeds) chains.push_back({*seed});
+    std::vector<Sample> candidates(chains.size());
+    for (std::size_t step = 1; step < length; ++step) {
+        std::vector<std::size_t> moved;
+        std::vector<std::vector<double>> points;
+        for (std::size_t j = 0; j < chains.size(); ++j) {
+            if (propose(chains[j].back(), spread, stream, candidates[j])) {
+                moved.push_back(j);
+                points.push_back(candidates[j].u);
+            }
+        }
+        const std::vector<double> values = evaluate(g, points, evaluations);
+        for (auto& chain : chains) chain.push_back(chain.back());  // rejected or unmoved: the chain stays
+        for (std::size_t k = 0; k < moved.size(); ++k) {
+            if (values[k] <= threshold) {
+                Sample& kept = chains[moved[k]].back();
+                kept.u = std::move(candidates[moved[k]].u);
+                kept.g = values[k];
+            }
+        }
+    }
+    return chains;
 }
 
 }  // namespace
 
 FailureEstimate subset_simulation(const LimitState& g, std::size_t dimensions, const SubsetSettings& s,
+                                  std::uint64_t seed) {
+    const BatchLimitState batch = [&g](const std::vector<std::vector<double>>& points) {
+        std::vector<double> values;
+        for (const std::vector<double>& u : points) values.push_back(g(u));
+        return values;
+    };
+    return subset_simulation(batch, dimensions, s, seed);
+}
+
+FailureEstimate subset_simulation(const BatchLimitState& g, std::size_t dimensions, const SubsetSettings& s,
                                   std::uint64_t seed) {
     const std::size_t n = s.samples_per_level;
     const double chains_exact = static_cast<double>(n) * s.level_probability;
@@ -280,14 +328,14 @@ FailureEstimate subset_simulation(const LimitState& g, std::size_t dimensions, c
     FailureEstimate e;
     e.method = "subset simulation";
     // Level 0: plain Monte Carlo; each sample is a chain of length 1.
-    std::vector<std::vector<Sample>> chains(n, std::vector<Sample>(1));
-    for (auto& chain : chains) {
-        chain[0].u.resize(dimensions);
-        for (double& x : chain[0].u) x = stream.standard_normal();
-        chain[0].g = g(chain[0].u);
+    std::vector<std::vector<double>> first(n, std::vector<double>(dimensions));
+    for (auto& u : first) {
+        for (double& x : u) x = stream.standard_normal();
     }
-    e.evaluations = n;
-    double probability = 1, variance = 0;
+    const std::vector<double> first_values = evaluate(g, first, e.evaluations);
+    std::vector<std::vector<Sample>> chains(n);
+    for (std::size_t i = 0; i < n; ++i) chains[i] = {Sample{std::move(first[i]), first_values[i]}};
+    double probability = 1, variance = 0, previous_threshold = INFINITY;
     for (int level = 1;; ++level) {
         std::vector<const Sample*> all;
         for (const auto& chain : chains) {
@@ -305,25 +353,29 @@ FailureEstimate subset_simulation(const LimitState& g, std::size_t dimensions, c
                 below += x.g <= threshold ? 1 : 0;
             }
         }
+        // No sample left above the threshold, or no step toward failure: the
+        // limit state is flat here (repeated states of a chain tie too, so
+        // ties alone are no sign of it).
+        if (threshold > 0 && (below == n || threshold >= previous_threshold)) {
+            e.flat = true;
+            e.reached_failure = false;
+            e.levels = level;
+            e.probability = e.coefficient_of_variation = std::numeric_limits<double>::quiet_NaN();
+            return e;
+        }
         const double p = static_cast<double>(below) / static_cast<double>(n);
         const double gamma = level == 1 ? 0.0 : chain_correlation_factor(indicators, p);
         probability *= p;
         variance += p > 0 ? (1 - p) / (static_cast<double>(n) * p) * (1 + gamma) : INFINITY;
         e.levels = level;
+        previous_threshold = threshold;
         if (threshold <= 0 || level == s.max_levels || below == 0) {
             e.reached_failure = threshold <= 0;
             break;
         }
         // Seeds: the samples below the threshold, in sorted order; each starts a chain.
-        std::vector<std::vector<Sample>> next;
-        for (std::size_t j = 0; j < n_chains; ++j) {
-            std::vector<Sample> chain{*all[j]};
-            while (chain.size() < length) {
-                chain.push_back(metropolis_step(chain.back(), g, threshold, s.proposal_spread, stream, e.evaluations));
-            }
-            next.push_back(std::move(chain));
-        }
-        chains = std::move(next);
+        const std::vector<const Sample*> seeds(all.begin(), all.begin() + static_cast<std::ptrdiff_t>(n_chains));
+        chains = grow_chains(seeds, length, g, threshold, s.proposal_spread, stream, e.evaluations);
     }
     e.probability = probability;
     e.coefficient_of_variation = std::sqrt(variance);

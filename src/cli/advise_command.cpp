@@ -121,7 +121,9 @@ std::string stop_text(const AdviceFindings& found) {
 
 std::string guidance_text(const Job& job, const std::vector<MotionOutcome>& options) {
     std::ostringstream out;
-    if (!job.motion.moves.empty()) {
+    const bool has_modes = describe_lift_model(job).modes.has_value();
+    if (!has_modes) out << "  - No period guidance: it needs the linearised swing modes (analysis.model: rigid).\n";
+    if (!job.motion.moves.empty() && has_modes) {
         const PeriodGuidance g = period_guidance(job);
         out << "  - The slow swing period at this hook height (rope " << fixed(job.hoist.rope_length, 2) << " m) is "
             << fixed(g.slow_period, 2) << " s. The first move's speed change takes " << fixed(g.acceleration_time, 2)
@@ -142,23 +144,34 @@ std::string guidance_text(const Job& job, const std::vector<MotionOutcome>& opti
     if (options.front().residual_swing > 0 && !job.limits.residual_swing) {
         out << "  - The job sets no residual_swing limit: the swing left at the end is not checked.\n";
     }
-    out << "  - Shaped and whole-period moves cancel swing for the modelled rope length: re-run advice if the hook height changes.\n";
+    if (has_modes) {
+        out << "  - Shaped and whole-period moves cancel swing for the modelled rope length: re-run advice if the hook "
+               "height changes.\n";
+    }
     return out.str();
 }
 
 std::string cautions_text(const ModelDescription& model) {
+    const std::string stop_scan = model.modes ? ""
+                                              : " The stop search's scan spacing comes from the swing period of the "
+                                                "rigid model of the same lift; every point is a simulation of the " +
+                                                    model.name + ".";
     std::string out = "\nCautions\n";
     for (const std::string& c : lift_cautions()) out += "  - " + c + "\n";
     out += "\nModel assumptions\n";
     for (const std::string& a : model.assumptions) out += "  - " + a + "\n";
-    out += "  - " + std::string(advice_method_assumption) + "\n";
+    out += "  - " + std::string(advice_method_assumption) + stop_scan + "\n";
     return out;
 }
 
 // Every search once: the text and the report read the same results.
-AdviceFindings find_advice(const Job& job) {
+// Shaped and whole-period moves are designed from the swing modes: a model
+// without them (the elastic model) is checked on the planned motion only.
+AdviceFindings find_advice(const Job& job, const ModelDescription& model) {
     AdviceFindings found;
-    found.options = motion_options(job);
+    found.options = model.modes ? motion_options(job)
+                                : std::vector<MotionOutcome>{
+                                      assess_motion(job, SupportMotion::from_spec(job.motion), "planned")};
     found.chosen = fastest_passing(found.options);
     if (!job.motion.moves.empty()) {
         found.acceleration = largest_acceleration_scale(job);
@@ -192,7 +205,7 @@ int run_advise(const AdviseOptions& options) {
     }
     const Job job = load_job_file(options.job_path);
     const ModelDescription model = describe_lift_model(job);
-    const AdviceFindings found = find_advice(job);
+    const AdviceFindings found = find_advice(job, model);
     const std::vector<MotionOutcome>& options_found = found.options;
     const std::optional<std::size_t> chosen = found.chosen;
 
@@ -200,6 +213,10 @@ int run_advise(const AdviseOptions& options) {
     out += "\nLargest passing drive settings (bisection over full simulations)\n" + drive_limits_text(job, found);
     out += "\nMotion options (* = fastest that passes; all checked by full simulation)\n";
     out += options_table(options_found, chosen);
+    if (!model.modes) {
+        out += "  Shaped and whole-period moves not offered: they are designed from the linearised swing modes, which the " +
+               model.name + " does not give (analysis.model: rigid offers them).\n";
+    }
     if (chosen) out += "  Fastest passing motion: " + options_found[*chosen].label + "\n";
     else out += "  No option passes every check: change the lift (limits, rigging, hook height), not only the drive.\n";
     out += "\nWorst-case emergency stop\n" + stop_text(found);

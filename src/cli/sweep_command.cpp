@@ -14,9 +14,11 @@
 #include "plumb/errors.hpp"
 #include "plumb/job_file.hpp"
 #include "plumb/output_files.hpp"
+#include "plumb/process_group.hpp"
 #include "plumb/scatter.hpp"
 #include "plumb/sweep.hpp"
 #include "input/input_file.hpp"
+#include "process_session.hpp"
 
 namespace plumb_cli {
 
@@ -72,9 +74,10 @@ void show_progress(std::size_t done, std::size_t total, std::chrono::steady_cloc
     std::fflush(stderr);
 }
 
-}  // namespace
-
-int run_sweep_command(const SweepOptions& options) {
+// One process's part of a sweep: its share of the shard's cases (the shard's
+// every size()-th case from its rank on), gathered on the first process, which
+// alone writes. One process: the shard itself.
+int run_sweep_on(const SweepOptions& options, const plumb::ProcessGroup& group) {
     if (!options.output_path.empty()) plumb::require_replaceable_output(options.output_path);
     check_report_path(options.report_path, options.job_path);
     if (!options.report_path.empty() && same_file(options.report_path, options.output_path)) {
@@ -83,15 +86,18 @@ int run_sweep_command(const SweepOptions& options) {
     std::vector<plumb::VariedField> fields;
     for (const std::string& v : options.vary) fields.push_back(plumb::parse_varied_field(v));
     const plumb::SweepShard shard = plumb::parse_shard(options.shard);
+    const plumb::SweepShard mine{shard.index + shard.count * group.rank(), shard.count * group.size()};
     const int threads = options.threads > 0 ? options.threads
                                             : static_cast<int>(std::max(1u, std::thread::hardware_concurrency()));
-    // A progress line only on a terminal: never in a log or a pipe.
-    const bool terminal = isatty(STDERR_FILENO) != 0;
+    // A progress line only on a terminal, never in a log or a pipe; with MPI, of the first process's share.
+    const bool terminal = group.is_first() && isatty(STDERR_FILENO) != 0;
     const auto start = std::chrono::steady_clock::now();
     std::function<void(std::size_t, std::size_t)> progress;
     if (terminal) progress = [&](std::size_t done, std::size_t total) { show_progress(done, total, start); };
-    const plumb::SweepResult result = plumb::run_sweep(options.job_path, fields, shard, threads, progress);
+    const plumb::SweepResult result = plumb::gather_cases(
+        group, [&] { return plumb::run_sweep(options.job_path, fields, mine, threads, progress); });
     if (terminal) std::fprintf(stderr, "\r%60s\r", "");
+    if (!group.is_first()) return static_cast<int>(plumb::ExitStatus::all_checks_pass);
 
     std::string report;
     if (!options.report_path.empty()) {
@@ -113,6 +119,12 @@ int run_sweep_command(const SweepOptions& options) {
     return static_cast<int>(plumb::ExitStatus::all_checks_pass);
 }
 
+}  // namespace
+
+int run_sweep_command(const SweepOptions& options) {
+    return run_in_session([&](const plumb::ProcessGroup& group) { return run_sweep_on(options, group); });
+}
+
 int run_sweep_merge(const SweepOptions& options) {
     if (!options.output_path.empty()) plumb::require_replaceable_output(options.output_path);
     std::vector<std::string> texts;
@@ -131,27 +143,45 @@ CLI::App* add_scatter_command(CLI::App& app, SweepOptions& options) {
     scatter->add_option("--seed", options.seed, "Seed of the random numbers (default 1): the same seed, the same result");
     scatter->add_option("--threads", options.threads, "Threads (default: every core)")->check(CLI::Range(0, 1024));
     add_report_option(*scatter, options.report_path);
+    scatter->add_flag("--subset", options.subset,
+                      "Also estimate each check's probability of failing by subset simulation (Au & Beck 2001), "
+                      "for probabilities far below 1 / samples");
+    scatter->add_option("--subset-checks", options.subset_checks,
+                        "Only these checks (comma-separated names as in the output; default: every check made)")
+        ->delimiter(',')
+        ->option_text("NAME,...");
+    scatter->add_option("--subset-level-samples", options.level_samples,
+                        "Subset simulation: samples a level (a multiple of 10, default 1000)");
     return scatter;
 }
 
 int run_scatter_command(const SweepOptions& options) {
-    const int threads = options.threads > 0 ? options.threads
-                                            : static_cast<int>(std::max(1u, std::thread::hardware_concurrency()));
     check_report_path(options.report_path, options.job_path);
-    const plumb::ScatterResult r = plumb::run_scatter(options.job_path, options.samples, options.seed, threads);
-    if (!options.report_path.empty()) {
-        const plumb::Job job = plumb::load_job_file(options.job_path);
-        plumb::write_files_atomically(
-            {{options.report_path, plumb::format_scatter_report(base_assessment(job), r, options.seed,
-                                                                plumb::report_provenance(job, PLUMB_VERSION),
-                                                                plumb::UnitSystem::si)}});
-    }
-    std::cout << plumb::format_scatter(r);
-    if (!options.report_path.empty()) std::cout << "Wrote " << options.report_path << "\n";
-    std::cout << std::flush;
-    for (const plumb::CheckFailure& f : r.checks)
-        if (f.failures > 0) return static_cast<int>(plumb::ExitStatus::check_failed);
-    return static_cast<int>(plumb::ExitStatus::all_checks_pass);
+    return run_in_session([&](const plumb::ProcessGroup& group) {
+        plumb::ScatterSettings settings;
+        settings.samples = options.samples;
+        settings.seed = options.seed;
+        settings.threads = options.threads > 0 ? options.threads
+                                               : static_cast<int>(std::max(1u, std::thread::hardware_concurrency()));
+        settings.subset = options.subset;
+        settings.subset_checks = options.subset_checks;
+        settings.level_samples = options.level_samples;
+        const plumb::ScatterResult r = plumb::run_scatter(options.job_path, settings, group);
+        if (!group.is_first()) return static_cast<int>(plumb::ExitStatus::all_checks_pass);
+        if (!options.report_path.empty()) {
+            const plumb::Job job = plumb::load_job_file(options.job_path);
+            plumb::write_files_atomically(
+                {{options.report_path, plumb::format_scatter_report(base_assessment(job), r, options.seed,
+                                                                    plumb::report_provenance(job, PLUMB_VERSION),
+                                                                    plumb::UnitSystem::si)}});
+        }
+        std::cout << plumb::format_scatter(r);
+        if (!options.report_path.empty()) std::cout << "Wrote " << options.report_path << "\n";
+        std::cout << std::flush;
+        for (const plumb::CheckFailure& f : r.checks)
+            if (f.failures > 0) return static_cast<int>(plumb::ExitStatus::check_failed);
+        return static_cast<int>(plumb::ExitStatus::all_checks_pass);
+    });
 }
 
 }  // namespace plumb_cli

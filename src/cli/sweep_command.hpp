@@ -19,6 +19,9 @@ struct SweepOptions {
     std::vector<std::string> shard_files;  // sweep-merge
     std::size_t samples = 1000;            // scatter
     std::uint64_t seed = 1;
+    bool subset = false;                     // scatter --subset
+    std::vector<std::string> subset_checks;
+    std::size_t level_samples = 1000;
 };
 
 CLI::App* add_sweep_command(CLI::App& app, SweepOptions& options);

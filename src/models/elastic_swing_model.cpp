@@ -131,10 +131,14 @@ private:
 }  // namespace
 
 std::unique_ptr<SwingModel> make_elastic_swing_model(const Job& job) {
+    return make_elastic_swing_model(job, SupportMotion::from_spec(job.motion));
+}
+
+std::unique_ptr<SwingModel> make_elastic_swing_model(const Job& job, SupportMotion x_travel) {
     auto channel = [](const std::vector<Move>& moves) {
         return moves.empty() ? SupportMotion::at_rest() : SupportMotion::from_moves(moves);
     };
-    SupportMotion x = SupportMotion::from_spec(job.motion), y = channel(job.motion.y_moves),
+    SupportMotion x = std::move(x_travel), y = channel(job.motion.y_moves),
                   hoist = channel(job.motion.hoist_moves);
     if (const std::optional<SlewSpec>& slew = job.motion.slew) {
         SupportPath path(std::move(x), std::move(y), std::move(hoist), job.hoist.rope_length,
