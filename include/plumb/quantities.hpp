@@ -52,6 +52,7 @@ enum Record : unsigned {
     least = 1u << 2,     // the smallest value over the run, and when
     residual = 1u << 3,  // the largest value after the last move
     crossing = 1u << 4,  // first times a watched level is reached
+    lift_off = 1u << 5,  // the largest value from the start to one vertical bounce period after lift-off
 };
 
 // Tensions with everything hanging at rest: the reference of dynamic factors.

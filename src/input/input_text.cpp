@@ -64,6 +64,7 @@ std::string show(double si, Dimension d) {
         case Dimension::angle: return number_text(si * 180 / pi) + " deg";
         case Dimension::angular_rate: return number_text(si * 180 / pi) + " deg/s";
         case Dimension::ratio: return number_text(si * 100) + " %";
+        case Dimension::stress: return number_text(si / 1e9) + " GPa";
         case Dimension::force:
         case Dimension::load:
             return std::fabs(si) >= 1000 ? number_text(si / 1000) + " kN" : number_text(si) + " N";

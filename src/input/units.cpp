@@ -81,6 +81,14 @@ constexpr std::array unit_table{
     UnitDef{"deg/s", Dimension::angular_rate, degree, 1},
 
     UnitDef{"%", Dimension::ratio, 1, 100},
+
+    UnitDef{"Pa", Dimension::stress, 1, 1},
+    UnitDef{"MPa", Dimension::stress, 1e6, 1},
+    UnitDef{"GPa", Dimension::stress, 1e9, 1},
+    UnitDef{"N/mm^2", Dimension::stress, 1e6, 1},
+    UnitDef{"N/mm2", Dimension::stress, 1e6, 1},
+    UnitDef{"psi", Dimension::stress, psi, 1},
+    UnitDef{"ksi", Dimension::stress, 1000 * psi, 1},
 };
 
 bool is_space(char c) { return c == ' ' || c == '\t' || c == '\r' || c == '\n'; }
@@ -179,6 +187,7 @@ std::string_view si_unit(Dimension d) {
         case Dimension::angle: return "rad";
         case Dimension::angular_rate: return "rad/s";
         case Dimension::ratio: return "";
+        case Dimension::stress: return "Pa";
     }
     return "";
 }
@@ -198,6 +207,7 @@ std::string_view bare_number_unit(Dimension d, JobUnits u) {
         case Dimension::angle: return "deg";
         case Dimension::angular_rate: return "deg/s";
         case Dimension::ratio: return "";
+        case Dimension::stress: return us ? "psi" : "Pa";
     }
     return "";
 }
@@ -215,6 +225,7 @@ std::string_view dimension_name(Dimension d) {
         case Dimension::angle: return "an angle";
         case Dimension::angular_rate: return "an angular rate";
         case Dimension::ratio: return "a ratio";
+        case Dimension::stress: return "a stress";
     }
     return "a quantity";
 }
@@ -232,6 +243,7 @@ std::string accepted_units(Dimension d) {
         case Dimension::angle: return "deg, rad";
         case Dimension::angular_rate: return "rad/s, deg/s";
         case Dimension::ratio: return "%";
+        case Dimension::stress: return "GPa, MPa, N/mm^2, Pa, psi, ksi";
     }
     return "";
 }

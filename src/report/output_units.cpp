@@ -31,6 +31,7 @@ constexpr UnitRow unit_table[] = {
     {Dimension::angle, "deg", degree, "deg", degree},
     {Dimension::angular_rate, "deg/s", degree, "deg/s", degree},
     {Dimension::ratio, "", 1.0, "", 1.0},
+    {Dimension::stress, "GPa", 1e9, "ksi", 1000 * psi},
 };
 
 const UnitRow& unit_row(Dimension d) {
