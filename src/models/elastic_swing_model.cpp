@@ -132,8 +132,8 @@ public:
             "Air drag on the hook block and the load (1/2 rho Cd A |v|^2 on the velocity relative to the "
             "air; Cd 1 and 1 m^2 per tonne of mass: common practice, no source) with the job's steady "
             "wind and gust.",
-            "What the elastic model leaves out: slewing and luffing, the load's size and rotation, "
-            "sheave friction, rope mass and crane deflection; setting the load down on the ground ends "
+            "What the elastic model leaves out: the load's size and rotation, sheave friction, rope mass "
+            "and the deflection of jib, boom and crane; setting the load down on the ground ends "
             "the run. Allow for them as the crane manufacturer and your standard require.",
         };
         if (lift_off_) {
@@ -143,9 +143,15 @@ public:
                 "; it leaves the ground when the rigging's upward pull reaches its weight, and "
                 "it is held in place (no sliding) until then.");
         }
+        if (path_.slewing()) {
+            d.assumptions.push_back(
+                "Slewing: the suspension point turns about the vertical slew axis (carried by the travel, if "
+                "any) at the planned slew angle and radius exactly; jib and tower are rigid (no deflection, "
+                "no twist).");
+        }
         d.validity = ValidityRule::always_valid;
         d.dynamic_factor_scope =
-            "everything the elastic model simulates: swing, hoisting and lowering, lift-off, slack and snatch, "
+            "everything the elastic model simulates: swing, hoisting and lowering, slewing, lift-off, slack and snatch, "
             "the ropes' axial bounce and wind; brake and impact effects are not included";
         d.swing_damping = "The swing is damped in the model only by air drag on the hook block and load and, "
                           "slightly, by the ropes' axial damping: it continues nearly undiminished until the next move.";
@@ -172,8 +178,15 @@ std::unique_ptr<SwingModel> make_elastic_swing_model(const Job& job) {
     auto channel = [](const std::vector<Move>& moves) {
         return moves.empty() ? SupportMotion::at_rest() : SupportMotion::from_moves(moves);
     };
-    SupportPath path(SupportMotion::from_spec(job.motion), channel(job.motion.y_moves),
-                     channel(job.motion.hoist_moves), job.hoist.rope_length);
+    SupportMotion x = SupportMotion::from_spec(job.motion), y = channel(job.motion.y_moves),
+                  hoist = channel(job.motion.hoist_moves);
+    if (const std::optional<SlewSpec>& slew = job.motion.slew) {
+        SupportPath path(std::move(x), std::move(y), std::move(hoist), job.hoist.rope_length,
+                         channel(slew->slew_moves), channel(slew->radius_moves),
+                         JibStart{slew->initial_radius, slew->initial_angle});
+        return std::make_unique<ElasticSwingModel>(parameters_from_job(job), std::move(path), job.lift_off);
+    }
+    SupportPath path(std::move(x), std::move(y), std::move(hoist), job.hoist.rope_length);
     return std::make_unique<ElasticSwingModel>(parameters_from_job(job), std::move(path), job.lift_off);
 }
 

@@ -142,7 +142,7 @@ ModelDescription RigidPendulumModel::describe() const {
         "down (their dynamic loads are not in the swing dynamic factor), slewing and luffing (only "
         "straight travel of the trolley or bridge is simulated), and wind on the load. Allow for "
         "them as the crane manufacturer and your standard require (the elastic model, analysis.model: "
-        "elastic, covers hoisting, lift-off, two travel axes and wind).",
+        "elastic, covers hoisting, lift-off, two travel axes, slewing and wind).",
     };
     d.validity = ValidityRule::slack_ends_validity;
     d.dynamic_factor_scope = "swing during travel only: hoisting, lift-off, brake and impact effects are not included";
