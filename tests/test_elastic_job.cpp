@@ -9,6 +9,9 @@
 #include "plumb/job.hpp"
 #include "plumb/job_file.hpp"
 #include "plumb/model.hpp"
+#include "plumb/report.hpp"
+
+#include <nlohmann/json.hpp>
 
 namespace {
 
@@ -42,7 +45,7 @@ const std::string elastic_keys = R"(  model: elastic
 rope:
   diameter: 16 mm
   fill_factor: 0.55
-  modulus_gpa: 100
+  modulus: 100 GPa
   lead_length: 10 m
   damping_ratio: 2 %
 )";
@@ -188,4 +191,70 @@ TEST_CASE("wind with the rigid model is an input error naming the key") {
     } catch (const plumb::InputError& e) {
         CHECK(std::string(e.what()).find("wind_speed") != std::string::npos);
     }
+}
+
+TEST_CASE("the old bare-number key rope.modulus_gpa is an input error naming rope.modulus") {
+    std::string text = elastic_job();
+    text.replace(text.find("  modulus: 100 GPa"), std::string("  modulus: 100 GPa").size(), "  modulus_gpa: 100");
+    CHECK_THROWS_WITH(parse_job(text, "job.yaml"),
+                      Catch::Contains("rope.modulus_gpa") && Catch::Contains("'modulus: 100 GPa'"));
+}
+
+TEST_CASE("rope.modulus reads a stress in GPa, MPa, N/mm^2, psi and ksi and refuses a bare number without units") {
+    auto modulus_of = [](const std::string& value) {
+        std::string text = elastic_job();
+        text.replace(text.find("100 GPa"), 7, value);
+        return parse_job(text, "job.yaml").rope->modulus;
+    };
+    CHECK(modulus_of("100 GPa") == Approx(100e9).epsilon(1e-15));
+    CHECK(modulus_of("100000 MPa") == Approx(100e9).epsilon(1e-15));
+    CHECK(modulus_of("100000 N/mm^2") == Approx(100e9).epsilon(1e-15));
+    // 1 psi = 1 lbf / in^2 = 0.45359237 kg x 9.80665 m/s^2 / 0.0254^2 m^2 (exact definitions, NIST SP 811).
+    CHECK(modulus_of("14500 ksi") == Approx(14500e3 * 0.45359237 * 9.80665 / (0.0254 * 0.0254)).epsilon(1e-14));
+    CHECK_THROWS_WITH(modulus_of("100"), Catch::Contains("rope.modulus") && Catch::Contains("GPa"));
+    CHECK_THROWS_WITH(modulus_of("400 GPa"), Catch::Contains("rope.modulus"));
+}
+
+namespace {
+
+// The base job lifting its load off the ground straight up.
+std::string lift_off_job(const std::string& model_keys) {
+    std::string text = base_job + model_keys;
+    text.replace(text.find("motion:\n  moves:\n    - distance: 4 m\n      top_speed: 0.5 m/s\n      acceleration: 0.25 m/s^2\n"),
+                 std::string("motion:\n  moves:\n    - distance: 4 m\n      top_speed: 0.5 m/s\n      acceleration: 0.25 m/s^2\n").size(),
+                 "motion:\n  fixed_support: true\n  hoist_moves:\n    - distance: -0.5 m\n      top_speed: 0.2 m/s\n"
+                 "      acceleration: 0.5 m/s^2\n");
+    return text + "lift_off:\n  slack_length: 0.05 m\n";
+}
+
+}  // namespace
+
+TEST_CASE("lift_off with the rigid model is an input error naming the key") {
+    CHECK_THROWS_WITH(parse_job(base_job + "lift_off:\n  slack_length: 0 m\n", "job.yaml"),
+                      Catch::Contains("lift_off") && Catch::Contains("analysis.model: elastic"));
+}
+
+TEST_CASE("lift_off without a hoist move that hoists in is an input error") {
+    std::string text = lift_off_job(elastic_keys);
+    text.replace(text.find("distance: -0.5 m"), 16, "distance: 0.5 m");
+    CHECK_THROWS_WITH(parse_job(text, "job.yaml"), Catch::Contains("hoist_moves") && Catch::Contains("hoists in"));
+}
+
+TEST_CASE("a lift-off job reports the lift-off, its check and the slack records in the summary and the JSON") {
+    const plumb::LiftAssessment a = plumb::assess_lift(parse_job(lift_off_job(elastic_keys), "job.yaml"), false);
+    REQUIRE(a.prediction.simulation.lift_off_time);
+    const std::string summary = plumb::format_summary(a, plumb::UnitSystem::si);
+    CHECK_THAT(summary, Catch::Contains("Lift-off at:") && Catch::Contains("Slack records") &&
+                            Catch::Contains("The elastic model ran") && Catch::Contains("lift_off_dynamic_factor"));
+    CHECK_THAT(summary, !Catch::Contains("straight travel of the trolley or bridge is simulated"));
+    const nlohmann::json doc = nlohmann::json::parse(plumb::format_json(a, plumb::UnitSystem::si));
+    CHECK(doc["model"] == "elastic model");
+    CHECK(doc["lift_off"]["lift_off_time"].get<double>() == Approx(*a.prediction.simulation.lift_off_time));
+    CHECK(doc["lift_off"]["dynamic_factor"]["value"].get<double>() > 1);
+    CHECK(doc["lift_off"]["hoist_rope_tension"]["unit"] == "kN");
+    const auto& rigging = doc["slack_records"]["rigging"];
+    REQUIRE(rigging["intervals"].size() >= 1);
+    CHECK(rigging["intervals"][0]["start"].get<double>() == 0);
+    CHECK(rigging["total_slack_time"]["value"].get<double>() > 0);
+    CHECK(doc["peaks"]["dynamic_factor_scope"].get<std::string>().find("lift-off, slack and snatch") != std::string::npos);
 }

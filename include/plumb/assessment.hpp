@@ -28,9 +28,13 @@ struct LiftPrediction {
     std::optional<double> hoist_rope_slack_time;  // s, first time the hoist rope tension reaches zero
     std::optional<double> rigging_slack_time;     // s, first time the rigging tension reaches zero
 
+    // s: where the run really ended (an event of the model may end it before end_time).
+    double simulated_until() const { return simulation.stopped_at.value_or(end_time); }
     LiftScales scales() const { return {parts_of_line, sling_leg_factor, model.static_loads, sheave_efficiency}; }
     // The peak of a simulated or derived quantity (a derived one at its base's time).
     Peak peak(Quantity q) const;
+    // The same over the lift-off (Record::lift_off); none when the load did not start on the ground.
+    std::optional<Peak> lift_off_peak(Quantity q) const;
     std::optional<double> static_value(Quantity q) const;
     // The time past which the predictions are not valid, by the model's
     // validity rule; none when the whole run is valid. Decided here only.
@@ -58,9 +62,6 @@ struct CheckResult {
     Verdict verdict = Verdict::pass;
     std::string note;                   // for NOT CHECKED: why the check could not be made
 };
-
-// What the swing dynamic factor covers and leaves out, beside every value of it.
-extern const char* const swing_dynamic_factor_scope;
 
 // How the rated load is compared: with the gross hook load (hook block,
 // rigging and load) or, for a net rating, with the load below the hook.

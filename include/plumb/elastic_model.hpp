@@ -188,6 +188,13 @@ public:
     // Everything hanging at rest under the support at time t (interval 0):
     // hook and load straight below the suspension point with their static stretches.
     std::vector<double> hanging_at_rest(double t = 0) const;
+    // The load resting on the ground at t = 0 (at rest), the hook block hanging
+    // above it on the hoist rope with the hook block's static stretch, the
+    // rigging slack by slack_length (0: exactly its unstretched length).
+    std::vector<double> resting_on_ground(double slack_length) const;
+    // The period of the hook block and load bouncing as one mass on the hoist
+    // rope and the rigging in series, at the fall length of time t, s.
+    double vertical_bounce_period(double t = 0) const;
 
     const ElasticParameters& parameters() const { return p_; }
     const SupportTrajectory& support() const { return support_; }

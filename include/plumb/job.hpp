@@ -156,6 +156,14 @@ struct RopeElasticity {
     double damping_ratio = 0;    // of each member's axial mode
 };
 
+// Elastic model only (the job file's section `lift_off`): the load starts
+// resting on the ground with the hook block hanging above it on the hoist
+// rope, the rigging slack by slack_length (0: just taut, carrying nothing),
+// and the hoist channel (motion.hoist_moves, hoisting in) lifts it off.
+struct LiftOff {
+    double slack_length = 0;  // m, >= 0: how far the hook rises before the rigging takes load
+};
+
 struct AnalysisSettings {
     std::optional<double> duration_after;  // s of free swing after the last move; none: automatic
     double output_step = 0.05;             // s, spacing of the CSV time series
@@ -216,6 +224,7 @@ struct Job {
     AnalysisSettings analysis;
     std::optional<RopeElasticity> rope;  // the elastic model's rope data (required by it)
     Obstacles obstacles;
+    std::optional<LiftOff> lift_off;     // none: the load starts hanging at rest
     // Where each key was given in the job file ("hook_block.mass" -> file,
     // line, column, key path), so that a check after the parser can point at
     // the input it refuses. Empty for a Job built in code.

@@ -37,6 +37,14 @@ struct ModelDescription {
     StaticLoads static_loads;         // everything hanging at rest
     std::vector<std::string> assumptions;  // as printed, one sentence each
     ValidityRule validity = ValidityRule::always_valid;
+    // What the model's dynamic factors (peak over static tension) cover and
+    // leave out, printed beside every value of them.
+    std::string dynamic_factor_scope;
+    // What damps the swing in the model, for the residual swing's note.
+    std::string swing_damping;
+    // s, the period of everything hanging bouncing on the ropes at the start
+    // (a model with elastic ropes); the lift-off records look this long past lift-off.
+    std::optional<double> vertical_bounce_period;
 };
 
 // What the integrator sees of a model is a DynamicSystem (system.hpp); the

@@ -50,6 +50,7 @@ public:
     double tension = 0;    // N, along the member (negative: it would have to push, i.e. go slack)
     double resultant = 0;  // N, magnitude of the whole force at its lower end; above the
                            //    tension only when that force has a side part (a pin force)
+    bool slack = false;    // slack in a model that follows slack members (tension 0 then)
 
 private:
     Eigen::Vector3d vector_ = Eigen::Vector3d::Zero();  // m, upper end to lower end
@@ -67,6 +68,7 @@ struct Observation {
     // (clearance.hpp); filled by the simulation, not by the models. Infinity:
     // the job has no keep-out zones.
     double clearance = std::numeric_limits<double>::infinity();
+    bool load_on_ground = false;  // the load still rests on the ground (a model with lift-off)
 
     const Member& member(MemberId id) const { return members[static_cast<std::size_t>(id)]; }
     Member& member(MemberId id) { return members[static_cast<std::size_t>(id)]; }

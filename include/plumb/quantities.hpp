@@ -61,6 +61,7 @@ enum Record : unsigned {
     // The least value per keep-out zone of the job, when, and where (the
     // closest approach); the series record then applies only to jobs with zones.
     per_zone = 1u << 5,
+    lift_off = 1u << 6,  // the largest value from the start to one vertical bounce period after lift-off
 };
 
 // Tensions with everything hanging at rest: the reference of dynamic factors.

@@ -56,6 +56,22 @@ std::vector<std::string> limits_not_given(const Limits& l, bool has_keep_out_zon
 // One sentence per member that goes slack, with what that means for the model.
 std::vector<std::string> slack_statements(const LiftPrediction& p);
 
+// "hoist rope", "rigging".
+const char* member_words(MemberId m);
+
+// The lift-off in one sentence: when the load left the ground (or that it did
+// not), over what time its records run, and what they cover. Empty when the
+// load did not start on the ground.
+std::string lift_off_statement(const LiftPrediction& p);
+// When the lift-off records end, s: one vertical bounce period after lift-off.
+std::optional<double> lift_off_window_end(const LiftPrediction& p);
+
+// Why the run ended before its planned end, if it did; empty otherwise.
+std::string run_end_statement(const LiftPrediction& p);
+
+// The model that ran and what its dynamic factors cover, in one sentence.
+std::string model_statement(const LiftPrediction& p);
+
 // The input digest: one fact per part of the job, each value with its unit
 // (the summary's "Input" and the report's inputs table).
 struct InputFact {

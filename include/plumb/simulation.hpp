@@ -4,6 +4,7 @@
 // optionally a time series on a fixed output grid.
 #pragma once
 
+#include <array>
 #include <functional>
 #include <memory>
 #include <optional>
@@ -32,11 +33,25 @@ struct WatchLevel {
     bool after_motion = false;
 };
 
+// One interval in which a member was slack, and the snatch that ended it.
+struct SlackInterval {
+    double start = 0;            // s, slack onset
+    std::optional<double> end;   // s, re-tightening; none: still slack when the run ended
+    std::optional<Peak> snatch;  // the member's peak tension from the re-tightening to its next slack
+                                 // onset or the end of the run
+};
+
+// Total time of the intervals, those still open counted to end_time.
+double slack_duration(const std::vector<SlackInterval>& intervals, double end_time);
+
 struct SimulationRequest {
     double end_time = 0;          // s; the motion's pieces after this are not used
     IntegratorSettings integrator;
     double output_step = 0;       // s; 0: no time series
     std::vector<WatchLevel> watch;
+    // s: the lift-off records (Record::lift_off) run from the start to this
+    // long after the load leaves the ground (ModelDescription::vertical_bounce_period).
+    double lift_off_window = 0;
     // The keep-out zones and the load's size; null or no zones: no clearance
     // is computed (quantities with the per_zone record stay at infinity).
     // Kept alive by the caller for the run.
@@ -58,6 +73,16 @@ struct SimulationResult {
     PerQuantity<Peak> residual;
     std::vector<std::optional<double>> first_crossing;  // one per WatchLevel
     std::vector<ClosestApproach> closest_approach;      // one per keep-out zone, in the job's order
+    // Slack intervals of each member, in time order (models that follow slack).
+    std::array<std::vector<SlackInterval>, member_count> slack;
+    // When the load left the ground (a model with lift-off); none: it did not
+    // (or never rested on it).
+    std::optional<double> lift_off_time;
+    bool started_on_ground = false;
+    // When an event of the model ended the run before end_time (e.g. the load
+    // set back down on the ground, outside the model); none: it ran to the end.
+    std::optional<double> stopped_at;
+    PerQuantity<Peak> lift_off;  // the Record::lift_off records (only with started_on_ground)
     std::vector<Observation> trace;
     IntegrationStats stats;
 };

@@ -24,6 +24,7 @@ enum class Dimension {
     angular_acceleration,  // rad/s^2
     angular_jerk,  // rad/s^3
     ratio,         // dimensionless fraction (0.9, or "90 %")
+    stress,        // Pa: a rope's modulus
 };
 
 // Standard gravity, exact by definition (CGPM 1901); used to turn a rated load
@@ -36,12 +37,14 @@ inline constexpr double standard_gravity = 9.80665;
 //   pound (avoirdupois): same agreement, 1 lb = 0.45359237 kg
 //   pound-force: 1 lbf = 1 lb x standard gravity (9.80665 m/s^2, CGPM 1901), NIST SP 811
 //   degree: pi/180 rad
+//   psi: 1 lbf / in^2; ksi: 1000 psi
 // The parser multiplies by them, the outputs divide by them: one definition for both.
 inline constexpr double foot = 0.3048;                          // m
 inline constexpr double inch = 0.0254;                          // m
 inline constexpr double pound = 0.45359237;                     // kg
 inline constexpr double pound_force = pound * standard_gravity;  // N
 inline constexpr double degree = std::numbers::pi / 180.0;      // rad
+inline constexpr double psi = pound_force / (inch * inch);       // Pa
 
 // The unit system a job file may declare once at its top (`units: si` or
 // `units: us`). Without it every quantity must carry its unit; with it a bare

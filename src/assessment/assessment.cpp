@@ -130,10 +130,24 @@ CheckResult limit_check(const Job& job, std::string name, std::string descriptio
     return c;
 }
 
+// Slack time and the largest snatch load of a member, in words.
+std::string slack_record_words(const LiftPrediction& p, MemberId member) {
+    const std::vector<SlackInterval>& intervals = p.simulation.slack[static_cast<std::size_t>(member)];
+    std::ostringstream s;
+    s.precision(4);
+    s << "slack " << intervals.size() << (intervals.size() == 1 ? " time" : " times") << " for "
+      << slack_duration(intervals, p.simulated_until()) << " s in all";
+    std::optional<Peak> worst;
+    for (const SlackInterval& i : intervals)
+        if (i.snatch && (!worst || i.snatch->value > worst->value)) worst = i.snatch;
+    if (worst) s << "; largest snatch at t = " << worst->time << " s, see the slack records";
+    return s.str();
+}
+
 // A rope or sling can only pull. Where it goes slack the load falls back into
 // it; whether the model can follow that is its validity rule.
-CheckResult taut_check(const LiftPrediction& p, std::string name, std::string description, const Peak& least,
-                       double static_tension, std::optional<double> slack_time) {
+CheckResult taut_check(const LiftPrediction& p, MemberId member, std::string name, std::string description,
+                       const Peak& least, double static_tension, std::optional<double> slack_time) {
     CheckResult c;
     c.name = std::move(name);
     c.description = std::move(description);
@@ -157,9 +171,58 @@ CheckResult taut_check(const LiftPrediction& p, std::string name, std::string de
             // the peak tensions it reports. A slack rope is still a hazard (the
             // rope can jump a sheave, the load drops into it), so it is a CAUTION.
             c.verdict = Verdict::caution;
-            c.note += "; the " + p.model.name + " follows the slack rope and the snatch as it re-tightens (see the peak tensions)";
+            c.note += "; the " + p.model.name + " follows the slack member and the snatch as it re-tightens (" +
+                      slack_record_words(p, member) + ")";
         }
     }
+    return c;
+}
+
+// The lift-off dynamic factor against the job's dynamic factor limit: the
+// same limit as the swing dynamic factor, applied to the peak from the start
+// to one vertical bounce period after lift-off.
+CheckResult lift_off_check(const Job& job, const LiftPrediction& p, std::optional<double> first_exceedance) {
+    const char* words = "lift-off dynamic factor: peak hoist rope tension from the start to one vertical bounce "
+                        "period after lift-off, over the static hoist rope tension";
+    const std::optional<Peak> peak = p.lift_off_peak(Quantity::dynamic_factor);
+    if (!job.limits.dynamic_factor)
+        return not_checked("lift_off_dynamic_factor", words, Dimension::ratio, "no limit given (limits.dynamic_factor)");
+    if (!p.simulation.lift_off_time)
+        return not_checked("lift_off_dynamic_factor", words, Dimension::ratio,
+                           "the load did not lift off the ground in the run (check the hoist moves)");
+    const double limit = *job.limits.dynamic_factor;
+    const double window_end = *p.simulation.lift_off_time + p.model.vertical_bounce_period.value_or(0.0);
+    if (first_exceedance && *first_exceedance > window_end) first_exceedance.reset();
+    CheckResult c = limit_check(job, "lift_off_dynamic_factor", words, Dimension::ratio, peak->value, peak->time,
+                                limit, first_exceedance);
+    if (limit > 1) {
+        set_utilisation(c, (c.value - 1) / (limit - 1), job.limits.caution_fraction);
+        c.utilisation_basis = "increment above 1: (value - 1) / (limit - 1)";
+    }
+    c.note = "lift-off at t = " + format_time(*p.simulation.lift_off_time) + " s; limit: limits.dynamic_factor";
+    return c;
+}
+
+// A lifted load that comes back down onto the ground lands on it: an impact
+// the model does not follow, so the run ends there and the rest of the lift
+// is not predicted. Only a FAIL can say that.
+CheckResult stays_lifted_check(const LiftPrediction& p) {
+    CheckResult c;
+    c.name = "load_stays_lifted";
+    c.description = "the load, once lifted off, must not come back down onto the ground";
+    c.dimension = Dimension::time;
+    c.value = p.simulated_until();
+    c.limit = p.end_time;
+    c.utilisation = p.simulation.stopped_at ? 1 : 0;
+    c.utilisation_basis = "0 % the run reached its end, 100 % it ended when the load came back down";
+    c.margin = 1 - c.utilisation;
+    c.value_time = c.value;
+    c.first_exceedance = p.simulation.stopped_at;
+    c.verdict = p.simulation.stopped_at ? Verdict::fail : Verdict::pass;
+    c.note = p.simulation.stopped_at
+                 ? "the load came back down onto the ground at t = " + format_time(*p.simulation.stopped_at) +
+                       " s; the run ends there: nothing after it is predicted"
+                 : "value: the time the run reached; limit: its planned end";
     return c;
 }
 
@@ -194,6 +257,14 @@ Peak LiftPrediction::peak(Quantity q) const {
     return {spec.derive(base.value, scales()), base.time};
 }
 
+std::optional<Peak> LiftPrediction::lift_off_peak(Quantity q) const {
+    if (!simulation.started_on_ground) return std::nullopt;
+    const QuantitySpec& spec = quantity_spec(q);
+    if (!is_derived(spec)) return simulation.lift_off[q];
+    const std::optional<Peak> base = lift_off_peak(spec.base);
+    return Peak{spec.derive(base->value, scales()), base->time};
+}
+
 std::optional<double> LiftPrediction::static_value(Quantity q) const { return plumb::static_value(q, scales()); }
 
 std::optional<double> LiftPrediction::valid_until() const {
@@ -214,9 +285,8 @@ ModelDescription describe_for_lift(const SwingModel& model) {
         "losses while hoisting: W / (e + e^2 + ... + e^n) for n parts of line and an efficiency e "
         "per sheave (default 0.98, roller bearings: common practice, no source); lead sheaves "
         "between the reeving and the drum are not counted.");
-    d.assumptions.push_back(
-        "The swing dynamic factor is the peak over the static hoist rope tension from swing during "
-        "travel only: hoisting and lowering, lift-off, brake and impact effects are not in it.");
+    d.assumptions.push_back("The swing dynamic factor is the peak over the static hoist rope tension; the " +
+                            d.name + " puts in it " + d.dynamic_factor_scope + ".");
     return d;
 }
 
@@ -238,6 +308,7 @@ LiftPrediction predict_lift(const Job& job, const SwingModel& model, const Model
     request.output_step = output_step;
     request.watch = watch;
     if (!job.obstacles.zones.empty()) request.obstacles = &job.obstacles;
+    request.lift_off_window = description.vertical_bounce_period.value_or(0.0);
     p.simulation = simulate(model, request);
 
     p.parts_of_line = job.hoist.parts_of_line;
@@ -248,8 +319,6 @@ LiftPrediction predict_lift(const Job& job, const SwingModel& model, const Model
     return p;
 }
 
-const char* const swing_dynamic_factor_scope =
-    "swing during travel only: hoisting, lift-off, brake and impact effects are not included";
 
 namespace {
 
@@ -378,7 +447,7 @@ std::vector<CheckResult> run_checks(const Job& job, const LiftPrediction& p, con
         checks.push_back(not_checked("sling_leg_tension", leg_words, Dimension::force, "no leg WLL given (rigging.leg_wll)"));
     }
     const std::string factor_words =
-        std::string("swing dynamic factor: peak over static hoist rope tension (") + swing_dynamic_factor_scope + ")";
+        std::string("swing dynamic factor: peak over static hoist rope tension (") + p.model.dynamic_factor_scope + ")";
     if (l.dynamic_factor) {
         CheckResult c = peak_check(Quantity::dynamic_factor, "swing_dynamic_factor", factor_words,
                                    *l.dynamic_factor, first_at(dynamic_factor_watch(job, p.model.static_loads)));
@@ -392,10 +461,14 @@ std::vector<CheckResult> run_checks(const Job& job, const LiftPrediction& p, con
     } else {
         checks.push_back(not_checked("swing_dynamic_factor", factor_words, Dimension::ratio, missing_limit("dynamic_factor")));
     }
-    checks.push_back(taut_check(p, "hoist_rope_taut", "least hoist rope tension (must stay above zero)",
+    if (job.lift_off)
+        checks.push_back(lift_off_check(
+            job, p, l.dynamic_factor ? first_at(dynamic_factor_watch(job, p.model.static_loads)) : std::nullopt));
+    if (job.lift_off) checks.push_back(stays_lifted_check(p));
+    checks.push_back(taut_check(p, MemberId::hoist_rope, "hoist_rope_taut", "least hoist rope tension (must stay above zero)",
                                 s.least[Quantity::hoist_rope_tension], p.model.static_loads.hoist_rope_tension,
                                 p.hoist_rope_slack_time));
-    checks.push_back(taut_check(p, "rigging_taut", "least rigging tension (must stay above zero)",
+    checks.push_back(taut_check(p, MemberId::rigging, "rigging_taut", "least rigging tension (must stay above zero)",
                                 s.least[Quantity::rigging_tension], p.model.static_loads.rigging_tension,
                                 p.rigging_slack_time));
     if (!job.obstacles.zones.empty())

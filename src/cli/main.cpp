@@ -177,9 +177,11 @@ void print_error(const std::string& message) {
 int run(int argc, char** argv) {
     CLI::App app{
         "plumb: swing and tension check of a crane lift.\n"
-        "Simulates the hook block and load hanging under the moving trolley or bridge as a\n"
-        "planar two-link pendulum and checks swing and rope and sling tensions against the\n"
-        "limits in the job file. A planning aid only: verify against the crane manufacturer's\n"
+        "Simulates the hook block and load hanging under the moving trolley or bridge, with the\n"
+        "model the job file chooses (analysis.model): rigid (default; a planar two-link\n"
+        "pendulum on rigid ropes) or elastic (3-D, elastic ropes that can go slack, hoisting,\n"
+        "lift-off, wind), and checks swing and rope and sling tensions against the limits in\n"
+        "the job file. Every output names the model that ran and its assumptions. A planning aid only: verify against the crane manufacturer's\n"
         "load charts and instructions; local regulations and the competent person govern.",
         "plumb"};
     app.set_version_flag("--version", "plumb " PLUMB_VERSION);

@@ -66,6 +66,7 @@ std::string show(double si, Dimension d) {
         case Dimension::angular_acceleration: return number_text(si * 180 / pi) + " deg/s^2";
         case Dimension::angular_jerk: return number_text(si * 180 / pi) + " deg/s^3";
         case Dimension::ratio: return number_text(si * 100) + " %";
+        case Dimension::stress: return number_text(si / 1e9) + " GPa";
         case Dimension::force:
         case Dimension::load:
             return std::fabs(si) >= 1000 ? number_text(si / 1000) + " kN" : number_text(si) + " N";

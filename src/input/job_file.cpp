@@ -51,7 +51,8 @@ using KeyList = std::vector<std::string_view>;
 const KeyList top_keys{"job", "motion", "hoist", "hook_block", "rigging",
                        "load", "environment", "limits", "analysis", "units", "rope",
                        "obstacles",  // keep-out zones (input/obstacles_section.hpp)
-                       "scatter"};  // uncertain inputs: read by plumb scatter only (docs/scatter.md)
+                       "scatter",  // uncertain inputs: read by plumb scatter only (docs/scatter.md)
+                       "lift_off"};  // the load starts on the ground (elastic model)
 const KeyList job_keys{"title", "reference"};
 const KeyList motion_keys{"moves", "speed_history", "fixed_support", "emergency_deceleration", "y_moves", "hoist_moves",
                           "slew"};
@@ -70,8 +71,10 @@ const KeyList limits_keys{"hook_rope_angle", "load_angle", "load_offset", "resid
                           "rope_design_factor", "clearance"};
 const KeyList analysis_keys{"duration_after", "output_step", "relative_tolerance",
                             "absolute_tolerance", "integrator", "model"};
-const KeyList rope_keys{"diameter", "fill_factor", "modulus_gpa", "axial_stiffness", "lead_length",
+// modulus_gpa: the old bare-number key, kept known only to name its successor.
+const KeyList rope_keys{"diameter", "fill_factor", "modulus", "modulus_gpa", "axial_stiffness", "lead_length",
                         "rigging_axial_stiffness", "damping_ratio"};
+const KeyList lift_off_keys{"slack_length"};
 
 struct SectionKeys {
     std::string_view name;  // as a user would look for it
@@ -86,6 +89,7 @@ const std::vector<SectionKeys> all_sections{
     {"rigging", &rigging_keys},         {"load", &load_keys},
     {"environment", &environment_keys}, {"limits", &limits_keys},
     {"analysis", &analysis_keys},       {"rope", &rope_keys},
+    {"lift_off", &lift_off_keys},
     {"motion.slew", &slew_keys},
     {"obstacles", &obstacles_keys},     {"each zone of obstacles.zones", &zone_keys},
     {"a zone's box", &box_keys},        {"a zone's plane", &plane_keys},
@@ -127,6 +131,7 @@ std::string_view example_unit(Dimension d) {
         case Dimension::speed: return "m/min";
         case Dimension::angle: return "deg";
         case Dimension::angular_rate: return "deg/s";
+        case Dimension::stress: return "GPa";
         case Dimension::angular_acceleration: return "deg/s^2";
         case Dimension::angular_jerk: return "deg/s^3";
         default: return si_unit(d);
@@ -494,6 +499,11 @@ void read_motion(const Section& s, Job& job) {
     const Entry* moves = s.find("moves");
     const Entry* history = s.find("speed_history");
     const Entry* slew = s.find("slew");
+    // The elastic model's further channels: travel along y and the hoist
+    // (distance > 0 pays rope out, lowering the hook); read with a fixed travel
+    // support too (a lift-off straight up), never silently dropped.
+    if (const Entry* e = s.find("y_moves")) job.motion.y_moves = read_move_list(s, *e);
+    if (const Entry* e = s.find("hoist_moves")) job.motion.hoist_moves = read_move_list(s, *e);
     if (const Entry* fixed = s.find("fixed_support")) {
         if (moves != nullptr || history != nullptr || slew != nullptr)
             s.fail_at_key(*fixed, "a fixed support has no moves, no speed history and no slewing: give only one "
@@ -517,10 +527,6 @@ void read_motion(const Section& s, Job& job) {
                           max_acceleration, "emergency deceleration");
         job.motion.emergency_deceleration = *stop;
     }
-    // The elastic model's further channels: travel along y and the hoist
-    // (distance > 0 pays rope out, lowering the hook).
-    if (const Entry* e = s.find("y_moves")) job.motion.y_moves = read_move_list(s, *e);
-    if (const Entry* e = s.find("hoist_moves")) job.motion.hoist_moves = read_move_list(s, *e);
     if (slew != nullptr) job.motion.slew = read_slew(s.section(*slew, slew_keys));
     if (history != nullptr) read_speed_history(s, *history, job.motion);
     else if (moves != nullptr) job.motion.moves = read_move_list(s, *moves);
@@ -820,15 +826,28 @@ void read_model(const Section& s, AnalysisSettings& a) {
         a.integrator = IntegratorMethod::cvode_bdf;
 }
 
+// The rope's modulus E with its unit (GPa, MPa, N/mm^2, Pa, psi, ksi). The
+// old key modulus_gpa, a number without a unit, is refused with the new one's
+// name: a modulus in the wrong unit is off by a factor of 1000 or more.
+double read_modulus(const Section& s) {
+    if (const Entry* old = s.find("modulus_gpa"))
+        s.fail_at_key(*old, "'modulus_gpa' is replaced by 'modulus', which takes a unit: write for example "
+                            "'modulus: 100 GPa' (also MPa, N/mm^2, Pa, psi, ksi)");
+    const double e = s.quantity("modulus", Dimension::stress);
+    s.check_range("modulus", e, Dimension::stress, 0, false, 300e9, true,
+                  "the rope's modulus, about 80 to 120 GPa for stranded steel wire rope");
+    return e;
+}
+
 RopeElasticity read_rope(const Section& s) {
     RopeElasticity r;
     if (const auto ea = s.optional_quantity("axial_stiffness", Dimension::force)) {
         s.check_positive("axial_stiffness", *ea, Dimension::force);
         r.axial_stiffness = *ea;
-        for (const char* key : {"diameter", "fill_factor", "modulus_gpa"})
+        for (const char* key : {"diameter", "fill_factor", "modulus", "modulus_gpa"})
             if (const Entry* e = s.find(key))
                 s.fail_at_key(*e, std::string("give either axial_stiffness or diameter, fill_factor and "
-                                              "modulus_gpa, not both ('") + key + "' would be ignored)");
+                                              "modulus, not both ('") + key + "' would be ignored)");
     } else {
         r.diameter = s.quantity("diameter", Dimension::length);
         s.check_positive("diameter", r.diameter, Dimension::length);
@@ -836,10 +855,7 @@ RopeElasticity read_rope(const Section& s) {
         r.fill_factor = s.quantity("fill_factor", Dimension::ratio);
         s.check_range("fill_factor", r.fill_factor, Dimension::ratio, 0, false, 1, true,
                       "the metallic area over d^2, about 0.5 to 0.6 for steel wire rope");
-        const Entry& e = s.require("modulus_gpa");
-        const double gpa = s.number(e, "100");
-        if (!(gpa > 0 && gpa <= 300)) s.fail_at(e, "must be more than 0 and at most 300 (GPa), got " + number_text(gpa));
-        r.modulus = gpa * 1e9;
+        r.modulus = read_modulus(s);
     }
     r.lead_length = s.optional_quantity("lead_length", Dimension::length).value_or(0.0);
     s.check_range("lead_length", r.lead_length, Dimension::length, 0, true, max_rope_length, true);
@@ -870,6 +886,27 @@ void check_channels(const Section& motion, const Job& job) {
                                               show(min_rope_length, Dimension::length) + " to " +
                                               show(max_rope_length, Dimension::length));
     }
+}
+
+// Lift-off from the ground: the elastic model's; the hoist channel must hoist
+// in (a negative distance) to lift the load at all.
+void read_lift_off(const Section& top, const Section& motion, Job& job) {
+    const Entry* e = top.find("lift_off");
+    if (e == nullptr) return;
+    if (job.analysis.model != SwingModelChoice::elastic)
+        top.fail_at_key(*e, "'lift_off' needs the elastic model (analysis.model: elastic); the rigid model "
+                            "starts with the load hanging");
+    const Section s = top.section(*e, lift_off_keys);
+    LiftOff l;
+    l.slack_length = s.quantity("slack_length", Dimension::length);
+    s.check_range("slack_length", l.slack_length, Dimension::length, 0, true, max_rope_length, true,
+                  "0 for a rigging just taut");
+    const bool hoists_in = std::any_of(job.motion.hoist_moves.begin(), job.motion.hoist_moves.end(),
+                                       [](const Move& m) { return m.distance < 0; });
+    if (!hoists_in)
+        motion.fail_at("hoist_moves", "'lift_off' needs a hoist move that hoists in (a negative distance) to "
+                                      "lift the load off the ground");
+    job.lift_off = l;
 }
 
 // ---------------------------------------------------------------- whole job
@@ -945,6 +982,7 @@ Job build_job(Context ctx, const YAML::Node& root) {
     }
     check_channels(motion, job);
     read_obstacles(top, load, limits_section ? &*limits_section : nullptr, job);
+    read_lift_off(top, motion, job);
     if (environment && job.analysis.model != SwingModelChoice::elastic) {
         for (const char* key : {"wind_speed", "wind_direction", "gust_peak", "gust_start", "gust_duration"})
             if (const Entry* e = environment->find(key))

@@ -91,6 +91,14 @@ constexpr std::array unit_table{
     UnitDef{"deg/s3", Dimension::angular_jerk, degree, 1},
 
     UnitDef{"%", Dimension::ratio, 1, 100},
+
+    UnitDef{"Pa", Dimension::stress, 1, 1},
+    UnitDef{"MPa", Dimension::stress, 1e6, 1},
+    UnitDef{"GPa", Dimension::stress, 1e9, 1},
+    UnitDef{"N/mm^2", Dimension::stress, 1e6, 1},
+    UnitDef{"N/mm2", Dimension::stress, 1e6, 1},
+    UnitDef{"psi", Dimension::stress, psi, 1},
+    UnitDef{"ksi", Dimension::stress, 1000 * psi, 1},
 };
 
 bool is_space(char c) { return c == ' ' || c == '\t' || c == '\r' || c == '\n'; }
@@ -191,6 +199,7 @@ std::string_view si_unit(Dimension d) {
         case Dimension::angular_acceleration: return "rad/s^2";
         case Dimension::angular_jerk: return "rad/s^3";
         case Dimension::ratio: return "";
+        case Dimension::stress: return "Pa";
     }
     return "";
 }
@@ -212,6 +221,7 @@ std::string_view bare_number_unit(Dimension d, JobUnits u) {
         case Dimension::angular_acceleration: return "deg/s^2";
         case Dimension::angular_jerk: return "deg/s^3";
         case Dimension::ratio: return "";
+        case Dimension::stress: return us ? "psi" : "Pa";
     }
     return "";
 }
@@ -231,6 +241,7 @@ std::string_view dimension_name(Dimension d) {
         case Dimension::angular_acceleration: return "an angular acceleration";
         case Dimension::angular_jerk: return "an angular jerk";
         case Dimension::ratio: return "a ratio";
+        case Dimension::stress: return "a stress";
     }
     return "a quantity";
 }
@@ -250,6 +261,7 @@ std::string accepted_units(Dimension d) {
         case Dimension::angular_acceleration: return "rad/s^2, deg/s^2";
         case Dimension::angular_jerk: return "rad/s^3, deg/s^3";
         case Dimension::ratio: return "%";
+        case Dimension::stress: return "GPa, MPa, N/mm^2, Pa, psi, ksi";
     }
     return "";
 }

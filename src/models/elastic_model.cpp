@@ -205,4 +205,19 @@ std::vector<double> ElasticLiftModel::hanging_at_rest(double t) const {
             k.velocity.x(), k.velocity.y(), k.velocity.z(), k.velocity.x(), k.velocity.y(), k.velocity.z()};
 }
 
+std::vector<double> ElasticLiftModel::resting_on_ground(double slack_length) const {
+    const SupportKinematics k = support_.at(0, 0);
+    const double hook_stretch = p_.hook_block_mass * p_.gravity / hoist_rope_stiffness(k.rope_length);
+    const Vec3 hook = k.position - Vec3(0, 0, k.rope_length + hook_stretch);
+    const Vec3 load = hook - Vec3(0, 0, p_.rigging_length - slack_length);
+    return {hook.x(), hook.y(), hook.z(), load.x(), load.y(), load.z(), k.velocity.x(), k.velocity.y(),
+            k.velocity.z(), 0, 0, 0};
+}
+
+double ElasticLiftModel::vertical_bounce_period(double t) const {
+    const double k1 = hoist_rope_stiffness(support_.at(t, 0).rope_length), k2 = rigging_stiffness();
+    const double k = k1 * k2 / (k1 + k2);  // springs in series
+    return 2 * std::numbers::pi * std::sqrt((p_.hook_block_mass + p_.load_mass) / k);
+}
+
 }  // namespace plumb

@@ -4,6 +4,10 @@
 // (suspension point, hook block, load, members with tensions).
 #include "elastic_swing_model.hpp"
 
+#include <cstdio>
+#include <optional>
+#include <string>
+
 #include "plumb/elastic_model.hpp"
 #include "plumb/errors.hpp"
 
@@ -52,10 +56,18 @@ Member member_from(const MemberObservation& m, const Eigen::Vector3d& velocity) 
     return member;
 }
 
+// With a lift-off, the ground lies where the load rests at the start.
+ElasticParameters with_ground(ElasticParameters p, const SupportPath& path, const std::optional<LiftOff>& lift_off) {
+    if (!lift_off) return p;
+    const std::vector<double> x0 = ElasticLiftModel(p, path).resting_on_ground(lift_off->slack_length);
+    p.ground = GroundData{true, x0[5]};
+    return p;
+}
+
 class ElasticSwingModel final : public SwingModel {
 public:
-    ElasticSwingModel(const ElasticParameters& p, SupportPath path)
-        : path_(std::move(path)), model_(p, path_) {}
+    ElasticSwingModel(const ElasticParameters& p, SupportPath path, std::optional<LiftOff> lift_off)
+        : path_(std::move(path)), model_(with_ground(p, path_, lift_off), path_), lift_off_(lift_off) {}
     ElasticSwingModel(const ElasticSwingModel&) = delete;  // model_ refers to path_
     ElasticSwingModel& operator=(const ElasticSwingModel&) = delete;
 
@@ -78,7 +90,9 @@ public:
     }
     std::uint64_t initial_mode(std::span<const double> x0) const override { return model_.initial_mode(x0); }
 
-    std::vector<double> initial_state() const override { return model_.hanging_at_rest(0); }
+    std::vector<double> initial_state() const override {
+        return lift_off_ ? model_.resting_on_ground(lift_off_->slack_length) : model_.hanging_at_rest(0);
+    }
 
     Observation observe(double t, const Regime& r, std::span<const double> x) const override {
         const ElasticObservation e = model_.observe(t, r, x);
@@ -89,6 +103,9 @@ public:
         o.load_cg = e.load - e.suspension_point;
         o.member(MemberId::hoist_rope) = member_from(e.hoist_rope, e.hook_velocity - e.suspension_velocity);
         o.member(MemberId::rigging) = member_from(e.rigging, e.load_velocity - e.hook_velocity);
+        o.member(MemberId::hoist_rope).slack = e.hoist_rope.slack;
+        o.member(MemberId::rigging).slack = e.rigging.slack;
+        o.load_on_ground = e.load_on_ground;
         return o;
     }
 
@@ -112,7 +129,20 @@ public:
             "The load hangs from one point at its centre of gravity: no rotation of the load, no "
             "sling legs swinging apart.",
             "The drive follows the planned support motion exactly, whatever the swing.",
+            "Air drag on the hook block and the load (1/2 rho Cd A |v|^2 on the velocity relative to the "
+            "air; Cd 1 and 1 m^2 per tonne of mass: common practice, no source) with the job's steady "
+            "wind and gust.",
+            "What the elastic model leaves out: the load's size and rotation, sheave friction, rope mass "
+            "and the deflection of jib, boom and crane; setting the load down on the ground ends "
+            "the run. Allow for them as the crane manufacturer and your standard require.",
         };
+        if (lift_off_) {
+            d.assumptions.push_back(
+                "Lift-off: the load starts resting on rigid level ground with the rigging slack by " +
+                length_words(lift_off_->slack_length) +
+                "; it leaves the ground when the rigging's upward pull reaches its weight, and "
+                "it is held in place (no sliding) until then.");
+        }
         if (path_.slewing()) {
             d.assumptions.push_back(
                 "Slewing: the suspension point turns about the vertical slew axis (carried by the travel, if "
@@ -120,12 +150,26 @@ public:
                 "no twist).");
         }
         d.validity = ValidityRule::always_valid;
+        d.dynamic_factor_scope =
+            "everything the elastic model simulates: swing, hoisting and lowering, slewing, lift-off, slack and snatch, "
+            "the ropes' axial bounce and wind; brake and impact effects are not included";
+        d.swing_damping = "The swing is damped in the model only by air drag on the hook block and load and, "
+                          "slightly, by the ropes' axial damping: it continues nearly undiminished until the next move.";
+        d.vertical_bounce_period = model_.vertical_bounce_period(0);
         return d;
     }
 
 private:
+    static std::string length_words(double metres) {
+        if (metres == 0) return "0 m (just taut)";
+        char text[32];
+        std::snprintf(text, sizeof text, "%.4g m", metres);
+        return text;
+    }
+
     SupportPath path_;
     ElasticLiftModel model_;
+    std::optional<LiftOff> lift_off_;
 };
 
 }  // namespace
@@ -144,10 +188,10 @@ std::unique_ptr<SwingModel> make_elastic_swing_model(const Job& job, SupportMoti
         SupportPath path(std::move(x), std::move(y), std::move(hoist), job.hoist.rope_length,
                          channel(slew->slew_moves), channel(slew->radius_moves),
                          JibStart{slew->initial_radius, slew->initial_angle});
-        return std::make_unique<ElasticSwingModel>(parameters_from_job(job), std::move(path));
+        return std::make_unique<ElasticSwingModel>(parameters_from_job(job), std::move(path), job.lift_off);
     }
     SupportPath path(std::move(x), std::move(y), std::move(hoist), job.hoist.rope_length);
-    return std::make_unique<ElasticSwingModel>(parameters_from_job(job), std::move(path));
+    return std::make_unique<ElasticSwingModel>(parameters_from_job(job), std::move(path), job.lift_off);
 }
 
 }  // namespace plumb

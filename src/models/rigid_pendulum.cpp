@@ -138,8 +138,15 @@ ModelDescription RigidPendulumModel::describe() const {
         "of gyration swinging with the rigging.",
         "No wind, no damping, no rope stretch and no hoisting or lowering during travel.",
         "The drive follows the planned support motion exactly, whatever the swing.",
+        "What the rigid model leaves out: hoisting and lowering and lift-off from the ground or setting "
+        "down (their dynamic loads are not in the swing dynamic factor), slewing and luffing (only "
+        "straight travel of the trolley or bridge is simulated), and wind on the load. Allow for "
+        "them as the crane manufacturer and your standard require (the elastic model, analysis.model: "
+        "elastic, covers hoisting, lift-off, two travel axes, slewing and wind).",
     };
     d.validity = ValidityRule::slack_ends_validity;
+    d.dynamic_factor_scope = "swing during travel only: hoisting, lift-off, brake and impact effects are not included";
+    d.swing_damping = "No damping is modelled: in the model this swing continues until the next move.";
     return d;
 }
 

@@ -180,6 +180,38 @@ json obstacles_json(const LiftAssessment& a, UnitSystem u) {
             {"zones", zones}};
 }
 
+// The lift-off records of the quantity table; null when the load did not start on the ground.
+json lift_off_json(const LiftPrediction& p, UnitSystem u) {
+    if (!p.simulation.started_on_ground) return nullptr;
+    json out = {{"lift_off_time", optional_time(p.simulation.lift_off_time)},
+                {"records_until", optional_time(lift_off_window_end(p))},
+                {"statement", lift_off_statement(p)}};
+    for (const QuantitySpec& q : quantity_table()) {
+        if (has_record(q, Record::lift_off)) out[q.key] = peak_json(*p.lift_off_peak(q.id), q.dimension, u);
+    }
+    return out;
+}
+
+// Each member's slack intervals and snatch loads.
+json slack_records_json(const LiftPrediction& p, UnitSystem u) {
+    json out = json::object();
+    const Dimension force = quantity_spec(Quantity::hoist_rope_tension).dimension;
+    for (std::size_t m = 0; m < member_count; ++m) {
+        const std::vector<SlackInterval>& intervals = p.simulation.slack[m];
+        json list = json::array();
+        for (const SlackInterval& i : intervals) {
+            list.push_back({{"start", i.start},
+                            {"end", optional_time(i.end)},
+                            {"duration", seconds_json(i.end.value_or(p.simulated_until()) - i.start)},
+                            {"snatch_load", i.snatch ? peak_json(*i.snatch, force, u) : json(nullptr)}});
+        }
+        const std::string key = m == 0 ? "hoist_rope" : "rigging";
+        out[key] = {{"total_slack_time", seconds_json(slack_duration(intervals, p.simulated_until()))},
+                    {"intervals", list}};
+    }
+    return out;
+}
+
 }  // namespace
 
 std::string format_json(const LiftAssessment& a, UnitSystem u) {
@@ -198,7 +230,7 @@ std::string format_json(const LiftAssessment& a, UnitSystem u) {
         }
     }
     peaks["sling_leg_factor"] = quantity_json(p.sling_leg_factor, Dimension::ratio, u);
-    peaks["dynamic_factor_scope"] = swing_dynamic_factor_scope;
+    peaks["dynamic_factor_scope"] = p.model.dynamic_factor_scope;
 
     json residual = {{"from", s.residual_from}, {"to", p.end_time}};
     for (const QuantitySpec& q : quantity_table()) {
@@ -254,13 +286,19 @@ std::string format_json(const LiftAssessment& a, UnitSystem u) {
         {"unit_system", unit_system_key(u)},
         {"units", units_json(u)},
         {"job", job_json(a, u)},
+        {"model", p.model.name},
+        {"model_statement", model_statement(p)},
         {"modes", p.model.modes ? modes_json(*p.model.modes) : json(nullptr)},
         {"simulated_until", p.end_time},
+        {"run_stopped_at", optional_time(p.simulation.stopped_at)},
+        {"run_end", run_end_statement(p)},
         {"end_of_motion", p.end_of_motion},
         {"hoist_rope_slack_time", optional_time(p.hoist_rope_slack_time)},
         {"rigging_slack_time", optional_time(p.rigging_slack_time)},
         {"model_valid_until", optional_time(p.valid_until())},
         {"slack", slack_statements(p)},
+        {"slack_records", slack_records_json(p, u)},
+        {"lift_off", lift_off_json(p, u)},
         {"peaks", peaks},
         {"residual", residual},
         {"obstacles", a.job.obstacles.zones.empty() ? json(nullptr) : obstacles_json(a, u)},

@@ -33,6 +33,7 @@ constexpr UnitRow unit_table[] = {
     {Dimension::angular_acceleration, "deg/s^2", degree, "deg/s^2", degree},
     {Dimension::angular_jerk, "deg/s^3", degree, "deg/s^3", degree},
     {Dimension::ratio, "", 1.0, "", 1.0},
+    {Dimension::stress, "GPa", 1e9, "ksi", 1000 * psi},
 };
 
 const UnitRow& unit_row(Dimension d) {

@@ -20,13 +20,9 @@ const std::vector<std::string>& lift_cautions() {
         "charts and instructions: verify every lift against them.",
         "Local regulations and the lift plan's competent or appointed person govern; results must "
         "be reviewed by a competent person before the lift.",
-        "Results hold only for the inputs given and the model stated below; a PASS is not "
-        "permission to lift. Wind, ground conditions, crane deflection, operator technique and "
-        "the condition of the rope and rigging are not assessed.",
-        "What the model leaves out: hoisting and lowering and lift-off from the ground or setting "
-        "down (their dynamic loads are not in the swing dynamic factor), slewing and luffing (only "
-        "straight travel of the trolley or bridge is simulated), and wind on the load. Allow for "
-        "them as the crane manufacturer and your standard require.",
+        "Results hold only for the inputs given and the model stated below (its assumptions say "
+        "what it leaves out); a PASS is not permission to lift. Ground conditions, crane "
+        "deflection, operator technique and the condition of the rope and rigging are not assessed.",
     };
     return cautions;
 }
@@ -68,7 +64,7 @@ std::string slack_statement(const LiftPrediction& p, const char* what, double t)
         return s + ": the " + p.model.name + " is not valid past t = " + seconds(t) +
                ". Values after that time are not predictions; the lift as planned must be changed.";
     }
-    return s + ".";
+    return s + "; the " + p.model.name + " follows the slack member and its snatch as it re-tightens (see the slack records).";
 }
 
 }  // namespace
@@ -116,6 +112,41 @@ std::vector<std::string> limits_not_given(const Limits& l, bool has_keep_out_zon
         if (!(l.*row.member)) out.push_back(row.words);
     }
     return out;
+}
+
+const char* member_words(MemberId m) { return m == MemberId::hoist_rope ? "hoist rope" : "rigging"; }
+
+std::optional<double> lift_off_window_end(const LiftPrediction& p) {
+    if (!p.simulation.lift_off_time) return std::nullopt;
+    return *p.simulation.lift_off_time + p.model.vertical_bounce_period.value_or(0.0);
+}
+
+std::string lift_off_statement(const LiftPrediction& p) {
+    const SimulationResult& s = p.simulation;
+    if (!s.started_on_ground) return "";
+    if (!s.lift_off_time) {
+        return "The load starts on the ground and does not lift off by t = " + seconds(p.end_time) +
+               ": the lift-off values are the largest over the whole run.";
+    }
+    return "The load starts on the ground and lifts off at t = " + seconds(*s.lift_off_time) +
+           "; the lift-off values are the largest from t = 0 to t = " + seconds(*lift_off_window_end(p)) +
+           ", one vertical bounce period (" + seconds(p.model.vertical_bounce_period.value_or(0.0)) +
+           ") after lift-off, over the static values with everything hanging at rest. Least tensions and "
+           "slack count from lift-off: on the ground the rigging carries less than the load's weight by design.";
+}
+
+std::string run_end_statement(const LiftPrediction& p) {
+    if (!p.simulation.stopped_at) return "";
+    return "The run ended at t = " + seconds(*p.simulation.stopped_at) + ", before its planned end at t = " +
+           seconds(p.end_time) + ": the load came back down onto the ground, which the " + p.model.name +
+           " does not follow. Nothing after that time is predicted; peaks and records cover the run up to it.";
+}
+
+std::string model_statement(const LiftPrediction& p) {
+    std::string s = "The " + p.model.name + " ran";
+    if (p.model.vertical_bounce_period)
+        s += " (vertical bounce period at the start " + seconds(*p.model.vertical_bounce_period) + ")";
+    return s + "; its dynamic factors cover " + p.model.dynamic_factor_scope + ".";
 }
 
 std::vector<std::string> slack_statements(const LiftPrediction& p) {
@@ -329,6 +360,15 @@ std::vector<InputFact> input_facts(const LiftAssessment& a, UnitSystem u) {
     out.push_back({"Load", load, "load"});
     out.push_back({"Gravity", qty(job.environment.gravity, Dimension::acceleration, u), "environment"});
     if (!job.obstacles.zones.empty()) out.push_back({"Keep-out zones", keep_out_text(job.obstacles, u), "obstacles"});
+    if (job.lift_off) {
+        out.push_back({"Lift-off",
+                       "the load starts resting on the ground, the rigging slack by " +
+                           qty(job.lift_off->slack_length, Dimension::length, u) +
+                           (job.lift_off->slack_length == 0 ? " (just taut)" : "") + "; lifted by " +
+                           std::to_string(job.motion.hoist_moves.size()) +
+                           (job.motion.hoist_moves.size() == 1 ? " hoist move" : " hoist moves"),
+                       "lift_off"});
+    }
     return out;
 }
 

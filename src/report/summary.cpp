@@ -139,8 +139,54 @@ std::string peaks_section(const LiftAssessment& a, UnitSystem u) {
                 "at rest. Line pull = total / " + parts_of_line_text(p.parts_of_line) +
                 ". Rigging resultant: the whole force between hook and rigging. "
                 "Sling leg tension = rigging resultant x " + num(p.sling_leg_factor) +
-                " (leg rule). Swing dynamic factors: " + swing_dynamic_factor_scope + ".", "  ", "  ");
+                " (leg rule). Swing dynamic factors: " + p.model.dynamic_factor_scope + ".", "  ", "  ");
     out += past_validity_note(p);
+    return out;
+}
+
+// The lift-off records of the quantity table, when the load started on the ground.
+std::string lift_off_section(const LiftAssessment& a, UnitSystem u) {
+    const LiftPrediction& p = a.prediction;
+    const std::string statement = lift_off_statement(p);
+    if (statement.empty()) return "";
+    std::string out = heading("Lift-off");
+    if (p.simulation.lift_off_time) out += field("Lift-off at", "t = " + seconds(*p.simulation.lift_off_time));
+    TextTable t({"quantity", "during lift-off", "at t", "static"}, "lrrr");
+    for (const QuantitySpec& q : quantity_table()) {
+        if (!has_record(q, Record::lift_off)) continue;
+        const Peak peak = *p.lift_off_peak(q.id);
+        const std::optional<double> at_rest = p.static_value(q.id);
+        t.add({q.words, qty(peak.value, q.dimension, u), when(peak.time, p),
+               at_rest ? qty(*at_rest, q.dimension, u) : ""});
+    }
+    out += t.render();
+    out += wrap(statement, "  ", "  ");
+    return out;
+}
+
+// Each slack interval of each member and the snatch load that ended it.
+std::string slack_records_section(const LiftAssessment& a, UnitSystem u) {
+    const LiftPrediction& p = a.prediction;
+    const SimulationResult& s = p.simulation;
+    if (std::all_of(s.slack.begin(), s.slack.end(), [](const auto& i) { return i.empty(); })) return "";
+    std::string out = heading("Slack records");
+    TextTable t({"member", "slack from", "to", "slack for", "snatch load", "at t"}, "lrrrrr");
+    for (std::size_t m = 0; m < member_count; ++m) {
+        const Dimension force = quantity_spec(Quantity::hoist_rope_tension).dimension;
+        for (const SlackInterval& i : s.slack[m]) {
+            t.add({member_words(static_cast<MemberId>(m)), seconds(i.start),
+                   i.end ? seconds(*i.end) : "end of run", seconds(i.end.value_or(p.simulated_until()) - i.start),
+                   i.snatch ? qty(i.snatch->value, force, u) : "-", i.snatch ? seconds(i.snatch->time) : "-"});
+        }
+        if (!s.slack[m].empty()) {
+            out += field(std::string("Slack in all, ") + member_words(static_cast<MemberId>(m)),
+                         seconds(slack_duration(s.slack[m], p.simulated_until())) + " in " +
+                             std::to_string(s.slack[m].size()) + (s.slack[m].size() == 1 ? " interval" : " intervals"));
+        }
+    }
+    out += t.render();
+    out += wrap("Snatch load: the member's peak tension from its re-tightening to its next slack onset or the "
+                "end of the run (for the hoist rope, all parts of line together).", "  ", "  ");
     return out;
 }
 
@@ -176,8 +222,7 @@ std::string residual_section(const LiftAssessment& a, UnitSystem u) {
                         seconds(p.model.modes->first.period) + "), so the amplitude may be understated.",
                     "  ", "  ");
     }
-    out += wrap("No damping is modelled: in the model this swing continues until the next move.",
-                "  ", "  ");
+    out += wrap(p.model.swing_damping, "  ", "  ");
     out += past_validity_note(p);
     return out;
 }
@@ -281,16 +326,21 @@ std::string statistics_line(const LiftAssessment& a) {
 std::string format_summary(const LiftAssessment& a, UnitSystem units) {
     std::string out = job_header(a.job, "plumb lift check", units);
     out += run_fields(a);
+    out += wrap("Model: " + model_statement(a.prediction), "", "  ");
     out += "\n";  // appended apart: GCC 12 warns falsely (-Wrestrict) on "\n" + string
     out += verdict_banner(a);
     out += load_offset_sparkline(a, units);
     const std::vector<std::string> slack = slack_statements(a.prediction);
     for (const std::string& s : slack) out += wrap("SLACK: " + s, "!!! ", "    ");
+    const std::string run_end = run_end_statement(a.prediction);
+    if (!run_end.empty()) out += wrap("RUN ENDED EARLY: " + run_end, "!!! ", "    ");
 
     out += input_digest(a, units);
     out += heading("Swing modes (small swings)");
     out += modes_table(a.prediction.model.modes);
     out += peaks_section(a, units);
+    out += lift_off_section(a, units);
+    out += slack_records_section(a, units);
     out += residual_section(a, units);
     out += clearance_section(a, units);
     out += checks_section(a, units);

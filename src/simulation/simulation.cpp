@@ -26,16 +26,28 @@ struct ExtremeTracker {
     double score(double value) const { return minimum ? -value : value; }
 };
 
-// The trackers the quantity table asks for: whole run (peaks and least values)
-// and residual swing.
-void add_trackers(std::vector<ExtremeTracker>& whole_run, std::vector<ExtremeTracker>& residual) {
+// The trackers the quantity table asks for: whole run (peaks and least values),
+// residual swing and lift-off.
+void add_trackers(std::vector<ExtremeTracker>& whole_run, std::vector<ExtremeTracker>& residual,
+                  std::vector<ExtremeTracker>& lift_off) {
     for (const QuantitySpec& q : quantity_table()) {
         if (is_derived(q)) continue;  // derived from their base quantity's record
         if (has_record(q, Record::peak)) whole_run.push_back({q.id, false, &SimulationResult::peak});
         if (has_record(q, Record::least)) whole_run.push_back({q.id, true, &SimulationResult::least});
         if (has_record(q, Record::residual)) residual.push_back({q.id, false, &SimulationResult::residual});
+        if (has_record(q, Record::lift_off)) lift_off.push_back({q.id, false, &SimulationResult::lift_off});
     }
 }
+
+// The tension each member's snatch load is read from.
+constexpr std::array<Quantity, member_count> member_tension{Quantity::hoist_rope_tension, Quantity::rigging_tension};
+
+// The peak tension of one member since it last came taut.
+struct SnatchTracker {
+    bool active = false;
+    bool seen = false;
+    Peak peak;
+};
 
 }  // namespace
 
@@ -52,14 +64,15 @@ std::vector<Quantity> recorded_quantities() {
 using SampleValues = std::array<double, samples_per_step + 1>;
 
 struct SimulationWorkspace::Buffers {
-    std::vector<ExtremeTracker> whole_run, residual;
+    std::vector<ExtremeTracker> whole_run, residual, lift_off;
+    std::array<SnatchTracker, member_count> snatch{};
     std::vector<Quantity> recorded = recorded_quantities();
     std::vector<double> x, x0, breaks;
     std::array<double, samples_per_step + 1> times{};
     std::array<Observation, samples_per_step + 1> samples{};
     PerQuantity<SampleValues> values{};  // of the recorded quantities at the samples
     std::vector<SampleValues> zone_values;  // clearance to each keep-out zone at the samples
-    Buffers() { add_trackers(whole_run, residual); }
+    Buffers() { add_trackers(whole_run, residual, lift_off); }
 };
 
 SimulationWorkspace::SimulationWorkspace() : buffers_(std::make_unique<Buffers>()) {}
@@ -76,16 +89,23 @@ public:
         : model_(model), request_(request), residual_from_(residual_from), result_(result),
           x_(buffers.x), times_(buffers.times), samples_(buffers.samples), values_(buffers.values),
           recorded_(buffers.recorded), whole_run_(buffers.whole_run), residual_(buffers.residual),
-          zone_values_(buffers.zone_values) {
+          lift_off_(buffers.lift_off), snatch_(buffers.snatch), zone_values_(buffers.zone_values) {
         x_.resize(model.state_size());
         for (ExtremeTracker& t : whole_run_) t.seen = false;
         for (ExtremeTracker& t : residual_) t.seen = false;
+        for (ExtremeTracker& t : lift_off_) t.seen = false;
+        snatch_.fill(SnatchTracker{});
         result.first_crossing.assign(request.watch.size(), std::nullopt);
         const std::size_t zones = request.obstacles != nullptr ? request.obstacles->zones.size() : 0;
         ClosestApproach none;  // beaten by the first step
         none.at.clearance = std::numeric_limits<double>::infinity();
         result.closest_approach.assign(zones, none);
         zone_values_.resize(zones);
+        for (auto& intervals : result.slack) intervals.clear();
+        result.lift_off_time.reset();
+        result.stopped_at.reset();
+        result.started_on_ground = false;
+        result.lift_off = {};
     }
 
     void on_step(const DenseStep& step) override {
@@ -105,7 +125,12 @@ public:
             for (int j = 0; j <= samples_per_step; ++j) values_[q][j] = quantity_value(samples_[j], q);
         }
         step_seen_ = true;
-        for (ExtremeTracker& tracker : whole_run_) update(tracker);
+        // While the load rests on the ground the ropes carry less than its
+        // weight by design: least values and slack crossings count from lift-off.
+        const bool on_ground = samples_[0].load_on_ground;
+        for (ExtremeTracker& tracker : whole_run_) {
+            if (!(tracker.minimum && on_ground)) update(tracker);
+        }
         update_approaches();
         // The motion's end is a break, so a step lies wholly before or after it.
         if (step.t_begin >= residual_from_) {
@@ -113,9 +138,16 @@ public:
         }
         for (std::size_t i = 0; i < request_.watch.size(); ++i) {
             if (request_.watch[i].after_motion && step.t_begin < residual_from_) continue;
+            if (request_.watch[i].below && on_ground) continue;
             if (!result_.first_crossing[i]) result_.first_crossing[i] = crossing(request_.watch[i]);
         }
+        record_lift_off(step.t_begin);
+        record_slack(step.t_begin);
         record_time_series();
+    }
+
+    void on_event(const EventRecord& event) override {
+        if (event.action == EventAction::stop) result_.stopped_at = event.time;
     }
 
 private:
@@ -134,13 +166,51 @@ private:
     }
 
     void update(ExtremeTracker& tracker) {
-        Peak& record = (result_.*tracker.record)[tracker.quantity];
-        const double so_far = tracker.seen ? tracker.score(record.value) : -std::numeric_limits<double>::infinity();
+        update_record(tracker, (result_.*tracker.record)[tracker.quantity], tracker.seen);
+    }
+
+    // The mode changes only at events, where the integrator restarts: a step
+    // lies wholly in one mode, read from its first sample.
+    void record_lift_off(double t_begin) {
+        const bool on_ground = samples_[0].load_on_ground;
+        if (!step_seen_before_ && on_ground) result_.started_on_ground = true;
+        if (!result_.started_on_ground) return;
+        if (!on_ground && !result_.lift_off_time) result_.lift_off_time = t_begin;
+        if (result_.lift_off_time && t_begin >= *result_.lift_off_time + request_.lift_off_window) return;
+        for (ExtremeTracker& tracker : lift_off_) update(tracker);
+    }
+
+    // Slack onset and re-tightening of each member, and the peak tension
+    // after each re-tightening (the snatch load).
+    void record_slack(double t_begin) {
+        for (std::size_t m = 0; m < member_count; ++m) {
+            std::vector<SlackInterval>& intervals = result_.slack[m];
+            const bool slack = samples_[0].members[m].slack;
+            const bool was_slack = !intervals.empty() && !intervals.back().end;
+            SnatchTracker& snatch = snatch_[m];
+            if (slack && !was_slack) {
+                intervals.push_back({t_begin, std::nullopt, std::nullopt});
+                snatch.active = false;
+            } else if (!slack && was_slack) {
+                intervals.back().end = t_begin;
+                snatch = SnatchTracker{true, false, {}};
+            }
+            if (!snatch.active) continue;
+            const ExtremeTracker peak{member_tension[m], false, nullptr, snatch.seen};
+            update_record(peak, snatch.peak, snatch.seen);
+            intervals.back().snatch = snatch.peak;
+        }
+        step_seen_before_ = true;
+    }
+
+    // Bring a record (largest, or least, of one quantity) up to this step.
+    void update_record(const ExtremeTracker& tracker, Peak& record, bool& seen) {
+        const double so_far = seen ? tracker.score(record.value) : -std::numeric_limits<double>::infinity();
         const Peak candidate = step_extreme(values_[tracker.quantity], tracker.minimum, so_far,
                                             [&](double t) { return value_at(t, tracker.quantity); });
-        if (!tracker.seen || tracker.score(candidate.value) > so_far) {
+        if (!seen || tracker.score(candidate.value) > so_far) {
             record = candidate;
-            tracker.seen = true;
+            seen = true;
         }
     }
 
@@ -250,9 +320,12 @@ private:
     const std::vector<Quantity>& recorded_;
     std::vector<ExtremeTracker>& whole_run_;
     std::vector<ExtremeTracker>& residual_;
+    std::vector<ExtremeTracker>& lift_off_;
+    std::array<SnatchTracker, member_count>& snatch_;
     std::vector<SampleValues>& zone_values_;  // clearance to each keep-out zone at the samples
     const DenseStep* step_ = nullptr;
     bool step_seen_ = false;
+    bool step_seen_before_ = false;  // a step before this one was recorded
     Regime regime_;  // of the current step
     long next_output_ = 0;
 };
@@ -267,6 +340,12 @@ void integration_breaks(const SupportTrajectory& path, double end_time, std::vec
 }
 
 }  // namespace
+
+double slack_duration(const std::vector<SlackInterval>& intervals, double end_time) {
+    double total = 0;
+    for (const SlackInterval& i : intervals) total += i.end.value_or(end_time) - i.start;
+    return total;
+}
 
 const SimulationResult& run_simulation(const SwingModel& model, const SimulationRequest& request,
                                        const IntegrateFunction& integrator, SimulationWorkspace& workspace) {
