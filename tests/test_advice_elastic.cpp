@@ -41,7 +41,7 @@ analysis:
 rope:
   diameter: 16 mm
   fill_factor: 0.55
-  modulus_gpa: 100
+  modulus: 100 GPa
   lead_length: 10 m
   damping_ratio: 2 %
 )";

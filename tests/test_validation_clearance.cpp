@@ -237,7 +237,7 @@ TEST_CASE("an elastic-model load beside a vertical wall clears it by its plan di
                             "obstacles:\n  suspension_height: 12 m\n  zones:\n"
                             "    - name: wall\n      plane: {x1: 5 m, y1: 2 m, x2: -5 m, y2: 2 m, keep_out: right}\n"
                             "analysis:\n  model: elastic\n  duration_after: 3 s\n"
-                            "rope:\n  diameter: 16 mm\n  fill_factor: 0.55\n  modulus_gpa: 100\n";
+                            "rope:\n  diameter: 16 mm\n  fill_factor: 0.55\n  modulus: 100 GPa\n";
     const LiftAssessment r = assess_lift(parse_job(job, "job.yaml"), false);
     const ClosestApproach& c = r.prediction.simulation.closest_approach[0];
     CHECK(c.at.clearance == Approx(1.5).margin(1e-9));
