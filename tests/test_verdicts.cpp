@@ -4,6 +4,7 @@
 // record. Job files here are invented for these tests.
 #include <catch2/catch.hpp>
 
+#include <cmath>
 #include <fstream>
 #include <sstream>
 #include <string>
@@ -380,4 +381,38 @@ TEST_CASE("four-digit rounding keeps large values out of exponent form", "[verdi
     CHECK(text::num4(17055.6) == "17056");
     CHECK(text::num4(1.25432) == "1.254");
     CHECK(text::percent4(0.92913) == "92.91 %");
+}
+
+TEST_CASE("a taut check is a CAUTION from the caution fraction of tension lost", "[verdicts]") {
+    // A pendulum released from rest at theta0 has its least rope tension
+    // m g cos theta0 at the turning points (textbook pendulum tension, see
+    // docs/sources.md sec. 3): 1 - cos 65 deg = 57.7 % of the static tension
+    // is lost. A 200 t hook block under a 1 kg load swings as that pendulum.
+    const std::string swing = R"(job:
+  title: Taut caution swing
+motion:
+  fixed_support: true
+hoist:
+  rope_length: 10 m
+  parts_of_line: 1
+  rated_load: 250 t
+hook_block:
+  mass: 200 t
+rigging:
+  length: 2 m
+load:
+  mass: 1 kg
+  initial_angle: 65 deg
+limits:
+  caution_at: 55 %
+analysis:
+  duration_after: 8 s
+)";
+    const double lost = 1 - std::cos(65.0 * 3.14159265358979323846 / 180);
+    const LiftAssessment at_55 = assess_text(swing);
+    const CheckResult& c = check_named(at_55, "hoist_rope_taut");
+    CHECK(c.utilisation == Approx(lost).epsilon(1e-4));  // the 1 kg load's share of the tension is 5e-6
+    CHECK(c.verdict == Verdict::caution);
+    const LiftAssessment at_60 = assess_text(replaced(swing, "caution_at: 55 %", "caution_at: 60 %"));
+    CHECK(check_named(at_60, "hoist_rope_taut").verdict == Verdict::pass);
 }

@@ -32,9 +32,20 @@ struct SpeedSample {
     double speed = 0;  // m/s, signed
 };
 
+// A constant acceleration from rest held to the end of the simulation: the
+// support never decelerates and never comes to rest (a reference case, such as
+// the pendulum in a uniformly accelerating frame). There is no end of motion,
+// so the simulated time is given here.
+struct HeldAcceleration {
+    double acceleration = 0;  // m/s^2, signed, not zero
+    double duration = 0;      // s, > 0: the whole simulated time
+};
+
 struct SupportMotionSpec {
     std::vector<Move> moves;                 // either moves ...
     std::vector<SpeedSample> speed_history;  // ... or a speed history (exactly one is non-empty)
+    // ... or neither and a held acceleration (`held_acceleration`).
+    std::optional<HeldAcceleration> held_acceleration;
     std::string speed_history_file;          // where the history came from, for the report
     // m/s^2, > 0: the drive's emergency (quick-stop) deceleration; only advice
     // reads it (the worst-case stop). None: not known, no stop is searched.

@@ -128,8 +128,8 @@ CheckResult limit_check(const Job& job, std::string name, std::string descriptio
 
 // A rope or sling can only pull. Where it goes slack the load falls back into
 // it; whether the model can follow that is its validity rule.
-CheckResult taut_check(const LiftPrediction& p, std::string name, std::string description, const Peak& least,
-                       double static_tension, std::optional<double> slack_time) {
+CheckResult taut_check(const Job& job, const LiftPrediction& p, std::string name, std::string description,
+                       const Peak& least, double static_tension, std::optional<double> slack_time) {
     CheckResult c;
     c.name = std::move(name);
     c.description = std::move(description);
@@ -137,13 +137,14 @@ CheckResult taut_check(const LiftPrediction& p, std::string name, std::string de
     c.value = least.value;
     c.limit = 0;
     // Utilisation of a taut check: how much of the static tension is lost at
-    // the least (100 % = slack); only slack fails.
-    c.utilisation = 1 - least.value / static_tension;
+    // the least (100 % = slack). Slack fails; from the caution fraction on
+    // (the least tension under 10 % of static at the default 90 %) it is a
+    // CAUTION, as for every other check.
+    set_utilisation(c, 1 - least.value / static_tension, job.limits.caution_fraction);
     c.utilisation_basis = "tension lost from static, over the static tension (100 % = slack)";
-    c.margin = 1 - c.utilisation;
     c.value_time = least.time;
     c.first_exceedance = slack_time;
-    c.verdict = slack_time ? Verdict::fail : Verdict::pass;
+    if (slack_time) c.verdict = Verdict::fail;
     if (slack_time) {
         c.note = "goes slack at t = " + format_time(*slack_time) + " s";
         if (p.model.validity == ValidityRule::slack_ends_validity) {
@@ -163,6 +164,15 @@ CheckResult taut_check(const LiftPrediction& p, std::string name, std::string de
 
 double automatic_duration_after(const std::optional<SwingModes>& modes) {
     return modes ? std::max(20.0, 4 * modes->first.period) : 20.0;
+}
+
+double simulated_end_time(const Job& job, double end_of_motion, const std::optional<SwingModes>& modes) {
+    if (std::isfinite(end_of_motion))
+        return end_of_motion + job.analysis.duration_after.value_or(automatic_duration_after(modes));
+    if (!job.motion.held_acceleration)
+        throw InputError("the support motion never comes to rest, but the job gives no simulated time "
+                         "(motion.held_acceleration.duration)");
+    return job.motion.held_acceleration->duration;
 }
 
 std::vector<WatchLevel> watch_levels(const Job& job, const StaticLoads& static_loads) {
@@ -221,8 +231,10 @@ LiftPrediction predict_lift(const Job& job, const SwingModel& model, const Model
                             const std::vector<WatchLevel>& watch, double output_step) {
     LiftPrediction p;
     p.model = description;
-    p.end_of_motion = model.trajectory().end_of_motion();  // every channel, not only x
-    p.end_time = p.end_of_motion + job.analysis.duration_after.value_or(automatic_duration_after(p.model.modes));
+    const double end_of_motion = model.trajectory().end_of_motion();  // every channel, not only x
+    p.end_time = simulated_end_time(job, end_of_motion, p.model.modes);
+    p.comes_to_rest = std::isfinite(end_of_motion);
+    p.end_of_motion = p.comes_to_rest ? end_of_motion : p.end_time;
     check_work_budget(job, p.model.modes, p.end_time, output_step);
 
     SimulationRequest request;
@@ -283,7 +295,11 @@ std::vector<CheckResult> run_checks(const Job& job, const LiftPrediction& p, con
     checks.push_back(swing_check(Quantity::load_offset, "load_offset",
                                  "peak horizontal offset of the load from the support", l.load_offset));
     const char* residual_words = "load offset amplitude after the last move ends";
-    if (l.residual_swing) {
+    if (!p.comes_to_rest) {
+        checks.push_back(not_checked("residual_swing", residual_words, Dimension::length,
+                                     "the support never comes to rest (held acceleration to the end of the "
+                                     "simulation), so there is no residual swing"));
+    } else if (l.residual_swing) {
         const Peak& residual = s.residual[Quantity::load_offset];
         CheckResult c = limit_check(job, "residual_swing", residual_words, Dimension::length, residual.value,
                                     residual.time, *l.residual_swing, first_at(residual_watch(job)));
@@ -357,10 +373,10 @@ std::vector<CheckResult> run_checks(const Job& job, const LiftPrediction& p, con
     } else {
         checks.push_back(not_checked("swing_dynamic_factor", factor_words, Dimension::ratio, missing_limit("dynamic_factor")));
     }
-    checks.push_back(taut_check(p, "hoist_rope_taut", "least hoist rope tension (must stay above zero)",
+    checks.push_back(taut_check(job, p, "hoist_rope_taut", "least hoist rope tension (must stay above zero)",
                                 s.least[Quantity::hoist_rope_tension], p.model.static_loads.hoist_rope_tension,
                                 p.hoist_rope_slack_time));
-    checks.push_back(taut_check(p, "rigging_taut", "least rigging tension (must stay above zero)",
+    checks.push_back(taut_check(job, p, "rigging_taut", "least rigging tension (must stay above zero)",
                                 s.least[Quantity::rigging_tension], p.model.static_loads.rigging_tension,
                                 p.rigging_slack_time));
     return checks;

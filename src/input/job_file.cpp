@@ -51,7 +51,9 @@ const KeyList top_keys{"job", "motion", "hoist", "hook_block", "rigging",
                        "load", "environment", "limits", "analysis", "units", "rope",
                        "scatter"};  // uncertain inputs: read by plumb scatter only (docs/scatter.md)
 const KeyList job_keys{"title", "reference"};
-const KeyList motion_keys{"moves", "speed_history", "fixed_support", "emergency_deceleration", "y_moves", "hoist_moves"};
+const KeyList motion_keys{"moves", "speed_history", "fixed_support", "emergency_deceleration", "y_moves", "hoist_moves",
+                          "held_acceleration"};
+const KeyList held_keys{"acceleration", "duration"};
 const KeyList move_keys{"distance", "top_speed", "acceleration", "deceleration", "jerk", "pause_before"};
 const KeyList hoist_keys{"rope_length", "parts_of_line", "rated_load", "rope_wll",
                          "rope_minimum_breaking_load", "rated_load_basis", "sheave_efficiency"};
@@ -438,9 +440,37 @@ std::vector<Move> read_move_list(const Section& s, const Entry& list) {
     return result;
 }
 
+// A constant acceleration from rest held to the end of the simulation (a
+// reference case: the support never stops, so the simulated time is given).
+HeldAcceleration read_held_acceleration(const Section& s) {
+    HeldAcceleration h;
+    h.acceleration = s.quantity("acceleration", Dimension::acceleration);
+    if (h.acceleration == 0)
+        s.fail_at("acceleration", "must not be zero: the support accelerates (negative: backwards); for no "
+                                  "motion at all use fixed_support: true");
+    s.check_plausible("acceleration", std::fabs(h.acceleration), Dimension::acceleration, min_acceleration,
+                      max_acceleration, "acceleration");
+    h.duration = s.quantity("duration", Dimension::time);
+    s.check_range("duration", h.duration, Dimension::time, 0, false, max_duration_after, true,
+                  "the whole simulated time: the support accelerates throughout");
+    const double end_speed = std::fabs(h.acceleration) * h.duration;
+    if (end_speed > max_top_speed)
+        s.fail_at("duration", "the support would reach " + show(end_speed, Dimension::speed) + " by the end (more than " +
+                                  show(max_top_speed, Dimension::speed) +
+                                  "): shorten the duration or lower the acceleration");
+    return h;
+}
+
 void read_motion(const Section& s, Job& job) {
     const Entry* moves = s.find("moves");
     const Entry* history = s.find("speed_history");
+    if (const Entry* held = s.find("held_acceleration")) {
+        for (const char* key : {"moves", "speed_history", "fixed_support", "emergency_deceleration"})
+            if (const Entry* e = s.find(key))
+                s.fail_at_key(*e, std::string("'") + key + "' cannot go with held_acceleration (an acceleration "
+                                  "held to the end of the simulation, no moves and no stop): give only one of them");
+        job.motion.held_acceleration = read_held_acceleration(s.section(*held, held_keys));
+    }
     if (const Entry* fixed = s.find("fixed_support")) {
         if (moves != nullptr || history != nullptr)
             s.fail_at_key(*fixed, "a fixed support has no moves and no speed history: give only one of them");
@@ -452,10 +482,11 @@ void read_motion(const Section& s, Job& job) {
     }
     if (moves != nullptr && history != nullptr)
         s.fail_at_key(*history, "give either moves or speed_history, not both");
-    if (moves == nullptr && history == nullptr)
+    if (moves == nullptr && history == nullptr && !job.motion.held_acceleration)
         fail(s.ctx(), s.mark(), s.path(),
-             "no support motion: give moves (a list of travel moves), speed_history (a CSV file) or "
-             "fixed_support: true (no motion: a free swing)");
+             "no support motion: give moves (a list of travel moves), speed_history (a CSV file), "
+             "fixed_support: true (no motion: a free swing) or held_acceleration (a constant acceleration "
+             "to the end of the simulation)");
 
     if (const auto stop = s.optional_quantity("emergency_deceleration", Dimension::acceleration)) {
         s.check_positive("emergency_deceleration", *stop, Dimension::acceleration);
@@ -468,7 +499,7 @@ void read_motion(const Section& s, Job& job) {
     if (const Entry* e = s.find("y_moves")) job.motion.y_moves = read_move_list(s, *e);
     if (const Entry* e = s.find("hoist_moves")) job.motion.hoist_moves = read_move_list(s, *e);
     if (history != nullptr) read_speed_history(s, *history, job.motion);
-    else job.motion.moves = read_move_list(s, *moves);
+    else if (moves != nullptr) job.motion.moves = read_move_list(s, *moves);
 }
 
 // ---------------------------------------------------------------- hoist and hook
@@ -865,6 +896,9 @@ Job build_job(Context ctx, const YAML::Node& root) {
         const Section analysis = top.section(*e, analysis_keys);
         read_analysis(analysis, job.analysis);
         read_model(analysis, job.analysis);
+        if (const Entry* after = analysis.find("duration_after"); after && job.motion.held_acceleration)
+            analysis.fail_at_key(*after, "a held acceleration never ends, so there is no free swing after it: the "
+                                         "simulated time is motion.held_acceleration.duration; remove this key");
     }
     const Entry* rope = top.find("rope");
     if (job.analysis.model == SwingModelChoice::elastic) {

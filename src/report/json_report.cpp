@@ -44,14 +44,21 @@ json job_json(const LiftAssessment& a, UnitSystem u) {
     const Job& job = a.job;
     const MotionDigest m = digest_motion(job.motion);
     json motion = {
-        {"kind", job.motion.fixed_support ? "fixed_support" : m.from_history ? "speed_history" : "moves"},
+        {"kind", job.motion.fixed_support       ? "fixed_support"
+                 : job.motion.held_acceleration ? "held_acceleration"
+                 : m.from_history               ? "speed_history"
+                                                : "moves"},
         {m.from_history ? "speed_history_rows" : "moves", m.count},
         {"total_travel", quantity_json(m.total_travel, Dimension::length, u)},
         {"end_position", quantity_json(m.net_travel, Dimension::length, u)},
         {"peak_speed", quantity_json(m.peak_speed, Dimension::speed, u)},
         {"peak_acceleration", quantity_json(m.peak_acceleration, Dimension::acceleration, u)},
         {"end_of_motion", seconds_json(a.prediction.end_of_motion)},
+        {"comes_to_rest", a.prediction.comes_to_rest},
     };
+    if (job.motion.held_acceleration) {
+        motion["held_acceleration"] = quantity_json(job.motion.held_acceleration->acceleration, Dimension::acceleration, u);
+    }
     if (m.from_history) motion["speed_history_file"] = job.motion.speed_history_file;
     return {
         {"title", job.title},

@@ -73,7 +73,7 @@ std::string slack_statement(const LiftPrediction& p, const char* what, double t)
 
 MotionDigest digest_motion(const SupportMotionSpec& spec) {
     MotionDigest d;
-    d.from_history = spec.moves.empty() && !spec.fixed_support;
+    d.from_history = spec.moves.empty() && !spec.fixed_support && !spec.held_acceleration;
     if (d.from_history) {
         d.count = spec.speed_history.size();
         for (std::size_t i = 1; i < spec.speed_history.size(); ++i) {
@@ -86,6 +86,7 @@ MotionDigest digest_motion(const SupportMotionSpec& spec) {
         for (const Move& m : spec.moves) d.total_travel += std::abs(m.distance);
     }
     const SupportMotion motion = SupportMotion::from_spec(spec);
+    if (spec.held_acceleration) d.total_travel = std::abs(motion.final_position());
     d.net_travel = motion.final_position();
     d.peak_speed = motion.peak_speed();
     d.peak_acceleration = motion.peak_acceleration();
@@ -208,6 +209,9 @@ std::vector<InputFact> input_facts(const LiftAssessment& a, UnitSystem u) {
     std::string motion;
     if (job.motion.fixed_support) {
         motion = "fixed support (no moves: a free swing from the initial condition)";
+    } else if (job.motion.held_acceleration) {
+        motion = "held acceleration " + qty(job.motion.held_acceleration->acceleration, Dimension::acceleration, u) +
+                 " from rest to the end of the simulation";
     } else if (m.from_history) {
         motion = "speed history of " + std::to_string(m.count) + " rows";
         if (!job.motion.speed_history_file.empty()) motion += " from " + job.motion.speed_history_file;
@@ -217,8 +221,9 @@ std::vector<InputFact> input_facts(const LiftAssessment& a, UnitSystem u) {
     motion += "; total travel " + qty(m.total_travel, Dimension::length, u) + ", end position " +
               qty(m.net_travel, Dimension::length, u) + "; peak speed " +
               qty(m.peak_speed, Dimension::speed, u) + "; peak acceleration " +
-              qty(m.peak_acceleration, Dimension::acceleration, u) + "; support at rest for good from t = " +
-              seconds(a.prediction.end_of_motion);
+              qty(m.peak_acceleration, Dimension::acceleration, u) +
+              (a.prediction.comes_to_rest ? "; support at rest for good from t = " + seconds(a.prediction.end_of_motion)
+                                          : std::string("; the support never comes to rest"));
     out.push_back({"Motion", motion, "motion"});
 
     std::string hoist = "rope length " + qty(job.hoist.rope_length, Dimension::length, u) + "; " +
