@@ -416,3 +416,23 @@ analysis:
     const LiftAssessment at_60 = assess_text(replaced(swing, "caution_at: 55 %", "caution_at: 60 %"));
     CHECK(check_named(at_60, "hoist_rope_taut").verdict == Verdict::pass);
 }
+
+TEST_CASE("a job may name plain sheave bearings for the common-practice efficiency 0.96", "[verdicts]") {
+    const LiftAssessment a = assess_text(replaced(full_job, "  rated_load: 5 t\n", "  rated_load: 5 t\n  sheave_bearing: plain\n"));
+    // Plain (bushed) sheaves about 0.96 per sheave: sources.md sec. 10 [practice].
+    CHECK(a.job.hoist.sheave_efficiency == 0.96);
+    const CheckResult& c = check_named(a, "lead_line_pull");
+    const double total = a.prediction.peak(Quantity::hoist_rope_tension).value;
+    CHECK(c.value == Approx(total / (0.96 + 0.96 * 0.96)).epsilon(1e-12));
+    CHECK(contains(c.note, "plain bearings, from the job: common practice, no source"));
+    CHECK(contains(format_json(a, UnitSystem::si), "plain bearings, from the job"));
+}
+
+TEST_CASE("a sheave bearing type goes alone: not with an efficiency, and only roller or plain", "[verdicts]") {
+    const std::string both = replaced(full_job, "  rated_load: 5 t\n",
+                                      "  rated_load: 5 t\n  sheave_bearing: roller\n  sheave_efficiency: 0.97\n");
+    CHECK_THROWS_WITH(parse_job(both, "verdict-test.yaml", "."), Catch::Contains("not both"));
+    const std::string other = replaced(full_job, "  rated_load: 5 t\n", "  rated_load: 5 t\n  sheave_bearing: bronze\n");
+    CHECK_THROWS_WITH(parse_job(other, "verdict-test.yaml", "."),
+                      Catch::Contains("hoist.sheave_bearing") && Catch::Contains("roller") && Catch::Contains("plain"));
+}

@@ -63,6 +63,10 @@ struct CheckResult {
 // What the swing dynamic factor covers and leaves out, beside every value of it.
 extern const char* const swing_dynamic_factor_scope;
 
+// Where the job's sheave efficiency comes from, in words for every output:
+// the job's own number, its bearing type, or the default (both common practice).
+std::string sheave_efficiency_source(const Hoist& hoist);
+
 // How the rated load is compared: with the gross hook load (hook block,
 // rigging and load) or, for a net rating, with the load below the hook.
 const char* rating_basis_words(RatingBasis b);

@@ -60,6 +60,13 @@ struct SupportMotionSpec {
     std::vector<Move> hoist_moves;
 };
 
+// The bearing type of the hoist's sheaves, when the job names it instead of an
+// efficiency: each stands for a common-practice efficiency (sheave_efficiency()).
+enum class SheaveBearing { roller, plain };
+// Common-practice efficiency of one sheave with these bearings (no published
+// source confirmed: docs/sources.md sec. 10): 0.98 roller or ball, 0.96 plain.
+constexpr double sheave_efficiency(SheaveBearing bearing) { return bearing == SheaveBearing::plain ? 0.96 : 0.98; }
+
 // What the hoist's rated load covers. gross: the rating is compared with the
 // whole hook load (hook block, rigging and load); net: the hook block and
 // rigging are deducted (the rating is for the load below the hook).
@@ -74,8 +81,9 @@ struct Hoist {
     RatingBasis rating_basis = RatingBasis::gross;
     // Efficiency of one sheave (rope tension out over in, hoisting). The
     // default is the common-practice value for roller-bearing sheaves.
-    double sheave_efficiency = 0.98;
-    bool sheave_efficiency_given = false;  // false: the default above was used
+    double sheave_efficiency = plumb::sheave_efficiency(SheaveBearing::roller);
+    bool sheave_efficiency_given = false;  // false: the default above was used, or the bearing's value
+    std::optional<SheaveBearing> sheave_bearing;  // named in the job (hoist.sheave_bearing); sets the efficiency
 };
 
 struct HookBlock {

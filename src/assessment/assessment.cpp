@@ -217,7 +217,8 @@ ModelDescription describe_for_lift(const SwingModel& model) {
         "Line pull per part of line = total hoist rope tension / parts of line (no sheave losses). "
         "The lead-line pull, checked against the rope WLL and the rope design factor, adds sheave "
         "losses while hoisting: W / (e + e^2 + ... + e^n) for n parts of line and an efficiency e "
-        "per sheave (default 0.98, roller bearings: common practice, no source); lead sheaves "
+        "per sheave (given, or from the sheave bearing type: 0.98 roller, the default, 0.96 plain; "
+        "common practice, no source); lead sheaves "
         "between the reeving and the drum are not counted.");
     d.assumptions.push_back(
         "The swing dynamic factor is the peak over the static hoist rope tension from swing during "
@@ -263,7 +264,7 @@ std::string sheave_words(const Job& job) {
     std::ostringstream s;
     s << job.hoist.parts_of_line << (job.hoist.parts_of_line == 1 ? " part" : " parts") << " of line, sheave efficiency "
       << job.hoist.sheave_efficiency;
-    s << (job.hoist.sheave_efficiency_given ? " (from the job)" : " (default for roller bearings: common practice, no source)");
+    s << " (" << sheave_efficiency_source(job.hoist) << ")";
     return s.str();
 }
 
@@ -393,6 +394,15 @@ Verdict overall_verdict(const std::vector<CheckResult>& checks) {
 std::size_t checks_not_made(const std::vector<CheckResult>& checks) {
     return static_cast<std::size_t>(std::count_if(
         checks.begin(), checks.end(), [](const CheckResult& c) { return c.verdict == Verdict::not_checked; }));
+}
+
+std::string sheave_efficiency_source(const Hoist& hoist) {
+    if (hoist.sheave_efficiency_given) return "from the job";
+    if (hoist.sheave_bearing) {
+        return std::string(*hoist.sheave_bearing == SheaveBearing::plain ? "plain" : "roller") +
+               " bearings, from the job: common practice, no source";
+    }
+    return "default for roller bearings: common practice, no source";
 }
 
 const char* rating_basis_words(RatingBasis b) {

@@ -56,7 +56,7 @@ const KeyList motion_keys{"moves", "speed_history", "fixed_support", "emergency_
 const KeyList held_keys{"acceleration", "duration"};
 const KeyList move_keys{"distance", "top_speed", "acceleration", "deceleration", "jerk", "pause_before"};
 const KeyList hoist_keys{"rope_length", "parts_of_line", "rated_load", "rope_wll",
-                         "rope_minimum_breaking_load", "rated_load_basis", "sheave_efficiency"};
+                         "rope_minimum_breaking_load", "rated_load_basis", "sheave_efficiency", "sheave_bearing"};
 const KeyList hook_block_keys{"mass"};
 const KeyList rigging_keys{"length", "legs", "leg_angle_from_horizontal", "leg_angle_from_vertical",
                            "leg_length", "spread", "legs_bearing", "leg_wll"};
@@ -504,6 +504,22 @@ void read_motion(const Section& s, Job& job) {
 
 // ---------------------------------------------------------------- hoist and hook
 
+// The sheaves' bearing type, for a common-practice efficiency (sources.md
+// sec. 10): either it or a number (sheave_efficiency), not both.
+void read_sheave_bearing(const Section& s, Hoist& h) {
+    const Entry* e = s.find("sheave_bearing");
+    if (e == nullptr) return;
+    if (const Entry* number = s.find("sheave_efficiency"))
+        s.fail_at_key(*number, "give either sheave_efficiency (a number) or sheave_bearing (roller or plain), not both");
+    const std::string bearing(trim(s.text(*e)));
+    if (bearing == "roller") h.sheave_bearing = SheaveBearing::roller;
+    else if (bearing == "plain") h.sheave_bearing = SheaveBearing::plain;
+    else
+        s.fail_at(*e, "expected roller (roller or ball bearings: efficiency 0.98) or plain (plain or bushed "
+                      "bearings: 0.96), got '" + bearing + "'; or give sheave_efficiency as a number");
+    h.sheave_efficiency = sheave_efficiency(*h.sheave_bearing);
+}
+
 void read_hoist(const Section& s, Hoist& h) {
     h.rope_length = s.quantity("rope_length", Dimension::length);
     s.check_positive("rope_length", h.rope_length, Dimension::length);
@@ -545,6 +561,7 @@ void read_hoist(const Section& s, Hoist& h) {
             s.fail_at(*e, "expected gross (the rated load covers hook block, rigging and load) or net (hook "
                           "block and rigging deducted), got '" + basis + "'");
     }
+    read_sheave_bearing(s, h);
     if (const auto e = s.optional_quantity("sheave_efficiency", Dimension::ratio)) {
         s.check_range("sheave_efficiency", *e, Dimension::ratio, 0.5, true, 1, true,
                       "the efficiency of one sheave, e.g. 0.98 (roller bearings) or 0.96 (plain bearings)");

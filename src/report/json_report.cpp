@@ -71,7 +71,7 @@ json job_json(const LiftAssessment& a, UnitSystem u) {
           {"rated_load", quantity_json(job.hoist.rated_load, Dimension::load, u)},
           {"rated_load_basis", job.hoist.rating_basis == RatingBasis::net ? "net" : "gross"},
           {"sheave_efficiency", job.hoist.sheave_efficiency},
-          {"sheave_efficiency_source", job.hoist.sheave_efficiency_given ? "job" : "default: roller bearings, common practice, no source"},
+          {"sheave_efficiency_source", sheave_efficiency_source(job.hoist)},
           {"rope_wll_per_line", optional_quantity_json(job.hoist.rope_wll, Dimension::force, u)},
           {"rope_minimum_breaking_load_per_line",
            optional_quantity_json(job.hoist.rope_minimum_breaking_load, Dimension::force, u)}}},
