@@ -17,6 +17,7 @@
 #include "plumb/report_facts.hpp"
 #include "plumb/sha256.hpp"
 #include "plumb/text_layout.hpp"
+#include "plumb_cli.hpp"
 
 using namespace plumb;
 using nlohmann::json;
@@ -59,12 +60,8 @@ limits:
   rope_design_factor: 3
 )";
 
-std::string replaced(std::string text, const std::string& from, const std::string& to) {
-    const std::size_t at = text.find(from);
-    REQUIRE(at != std::string::npos);
-    text.replace(at, from.size(), to);
-    return text;
-}
+using plumb_test::contains;
+using plumb_test::replaced;
 
 LiftAssessment assess_text(const std::string& yaml) { return assess_lift(parse_job(yaml, "verdict-test.yaml", "."), false); }
 
@@ -74,10 +71,6 @@ const CheckResult& check_named(const LiftAssessment& a, const std::string& name)
     }
     FAIL("no check named " << name);
     return a.checks.front();
-}
-
-bool contains(const std::string& haystack, const std::string& needle) {
-    return haystack.find(needle) != std::string::npos;
 }
 
 // Runs of white space as one space, so that wrapped text compares.
