@@ -74,3 +74,45 @@ TEST_CASE("a pendulum under a held support acceleration swings between 0 and twi
     // Still swinging back to the vertical after two periods: no end of motion, no settling.
     CHECK_THAT(highest_later, WithinAbs(0.0, 1e-5));
 }
+
+TEST_CASE("an elastic rope under a held support acceleration swings to twice atan(a/g) in its first swing") {
+    // The elastic model (3-D, stretching ropes, damped axial modes): a 20 t
+    // hook block on a stiff rope (EA = 1e9 N, stretch 2e-4 of L1) with a 1 kg
+    // load, a small held acceleration so that the still-air drag of the
+    // elastic model stays negligible over the first swing.
+    const std::string elastic = R"(units: si
+job:
+  title: Held acceleration elastic pendulum
+motion:
+  held_acceleration:
+    acceleration: 0.05 m/s^2
+    duration: 4 s
+hoist:
+  rope_length: 10 m
+  parts_of_line: 1
+  rated_load: 25 t
+hook_block:
+  mass: 20 t
+rigging:
+  length: 2 m
+load:
+  mass: 1 kg
+analysis:
+  model: elastic
+rope:
+  axial_stiffness: 1000000 kN
+  damping_ratio: 5 %
+)";
+    const plumb::LiftAssessment a = plumb::assess_lift(plumb::parse_job(elastic, "held-elastic.yaml"), false);
+    const double a_held = 0.05;
+    // Released at rest in the tilted field sqrt(g^2 + a^2): the first peak is
+    // 2 atan(a/g) = 0.0101968 rad, at half the period 2 pi sqrt(L/g_eff)
+    // (docs/sources.md sec. 2 [derived]). 1e-5 rad: drag at the 0.16 m/s
+    // reached adds 1.6e-5 m/s^2 (3e-6 rad of tilt), the stretch 2e-4 of L1
+    // changes the period, not the amplitude; a 1 % error in a or g moves the
+    // peak by 1e-4 rad.
+    const plumb::Peak peak = a.prediction.peak(plumb::Quantity::hook_rope_angle);
+    CHECK_THAT(peak.value, WithinAbs(2 * std::atan(a_held / g0), 1e-5));
+    const double half_period = pi * std::sqrt(10.0 / std::hypot(g0, a_held));
+    CHECK_THAT(peak.time, WithinAbs(half_period, 0.01));  // the stretch lengthens L1 by 2 mm: 3e-4 s
+}
