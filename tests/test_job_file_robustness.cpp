@@ -44,7 +44,8 @@ std::string corrupt(std::string s, std::mt19937& rng) {
 TEST_CASE("corrupted job files parse or are refused with a located input error", "[job_file][robustness]") {
     std::mt19937 rng(20261201);
     int refused = 0;
-    for (const char* name : {"coil-transfer.yaml", "precast-panel.yaml", "pump-skid.yaml", "gantry-drive-log.yaml"}) {
+    for (const char* name : {"coil-transfer.yaml", "precast-panel.yaml", "pump-skid.yaml", "gantry-drive-log.yaml",
+                             "tower-slew-wind.yaml"}) {
         const std::string original = read_case(name);
         REQUIRE_FALSE(original.empty());
         for (int i = 0; i < 1000; ++i) {

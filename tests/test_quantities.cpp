@@ -44,10 +44,10 @@ bool has_column(const std::vector<std::string>& columns, const std::string& key)
     return false;
 }
 
-}  // namespace
-
-TEST_CASE("every entry of the quantity table appears in the JSON, CSV and summary its records name", "[quantities]") {
-    const LiftAssessment a = assess_lift(demo_job(), true);
+// Every entry of the table that the lift reports (reported_for) appears where
+// its records say, and nothing else does.
+void check_outputs_follow_the_table(const std::string& case_name) {
+    const LiftAssessment a = assess_lift(demo_job(case_name), true);
     const nlohmann::json doc = nlohmann::json::parse(format_json(a, UnitSystem::si));
     const std::string csv = format_csv(a, UnitSystem::si);
     const std::vector<std::string> columns = csv_columns(csv);
@@ -57,17 +57,40 @@ TEST_CASE("every entry of the quantity table appears in the JSON, CSV and summar
     for (const QuantitySpec& q : quantity_table()) {
         INFO(q.key);
         CHECK(q.records != 0);  // every quantity is reported somewhere
-        CHECK(has_column(columns, q.key) == has_record(q, Record::series));
-        if (has_record(q, Record::series)) ++series_count;
-        CHECK(doc["peaks"].contains(q.key) == has_record(q, Record::peak));
-        if (has_record(q, Record::peak)) CHECK(contains(summary, "  " + std::string(q.words) + "  "));
-        CHECK(doc["peaks"].contains(std::string("least_") + q.key) == has_record(q, Record::least));
-        CHECK(doc["peaks"].contains(std::string("static_") + q.key) == q.static_in_json);
-        CHECK(doc["residual"].contains(q.key) == has_record(q, Record::residual));
-        if (has_record(q, Record::residual)) CHECK(contains(summary, "  " + std::string(q.residual_words) + ":"));
+        const bool reported = reported_for(q, a.job.motion);
+        auto has = [&](Record r) { return reported && has_record(q, r); };
+        CHECK(has_column(columns, q.key) == has(Record::series));
+        if (has(Record::series)) ++series_count;
+        CHECK(doc["peaks"].contains(q.key) == has(Record::peak));
+        if (has(Record::peak)) CHECK(contains(summary, "  " + std::string(q.words) + "  "));
+        if (!reported && *q.words != 0) CHECK_FALSE(contains(summary, "  " + std::string(q.words) + "  "));
+        CHECK(doc["peaks"].contains(std::string("least_") + q.key) == has(Record::least));
+        CHECK(doc["peaks"].contains(std::string("static_") + q.key) == (reported && q.static_in_json));
+        CHECK(doc["residual"].contains(q.key) == has(Record::residual));
+        if (has(Record::residual)) CHECK(contains(summary, "  " + std::string(q.residual_words) + ":"));
     }
     CHECK(columns.size() == 1 + series_count);  // time, then the series quantities and nothing else
     CHECK(columns.front() == "time");
+}
+
+}  // namespace
+
+TEST_CASE("every entry of the quantity table appears in the JSON, CSV and summary its records name", "[quantities]") {
+    check_outputs_follow_the_table("coil-transfer.yaml");
+}
+
+TEST_CASE("a slewing lift also lists the radial and tangential swing components", "[quantities]") {
+    check_outputs_follow_the_table("tower-slew-wind.yaml");
+    const Job job = demo_job("tower-slew-wind.yaml");
+    std::size_t slewing_only = 0;
+    for (const QuantitySpec& q : quantity_table()) {
+        if (q.scope == QuantityScope::slewing) {
+            ++slewing_only;
+            CHECK(reported_for(q, job.motion));
+            CHECK_FALSE(reported_for(q, demo_job().motion));
+        }
+    }
+    CHECK(slewing_only == 5);  // the slew angle; radial and tangential, hoist rope and rigging
 }
 
 TEST_CASE("a member built from its vector has the angle and rate of the planar member", "[quantities]") {

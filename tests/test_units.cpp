@@ -161,6 +161,10 @@ TEST_CASE("angular rate units convert to radians per second", "[units]") {
     CHECK(parse_quantity("0.1 rad/s", Dimension::angular_rate) == 0.1);
     // SI Brochure, 9th edition, Table 8: 1 degree = (pi/180) rad.
     CHECK(parse_quantity("90 deg/s", Dimension::angular_rate) == near_exactly(pi / 2));
+    CHECK(parse_quantity("90 deg/s^2", Dimension::angular_acceleration) == near_exactly(pi / 2));
+    CHECK(parse_quantity("0.5 rad/s2", Dimension::angular_acceleration) == 0.5);
+    CHECK(parse_quantity("90 deg/s^3", Dimension::angular_jerk) == near_exactly(pi / 2));
+    CHECK_THROWS_AS(parse_quantity("1 deg/s", Dimension::angular_acceleration), plumb::UnitError);
 }
 
 TEST_CASE("a percentage is a hundredth and a bare ratio is a fraction", "[units]") {
@@ -257,7 +261,8 @@ TEST_CASE("each dimension has its SI unit, a name and its accepted units", "[uni
 TEST_CASE("every unit listed as accepted is accepted for its dimension", "[units]") {
     for (Dimension d : {Dimension::length, Dimension::mass, Dimension::force, Dimension::time,
                         Dimension::speed, Dimension::acceleration, Dimension::jerk, Dimension::angle,
-                        Dimension::angular_rate, Dimension::ratio}) {
+                        Dimension::angular_rate, Dimension::angular_acceleration, Dimension::angular_jerk,
+                        Dimension::ratio}) {
         const std::string list = plumb::accepted_units(d);
         std::size_t start = 0;
         while (start < list.size()) {

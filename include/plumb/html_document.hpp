@@ -21,6 +21,7 @@ struct ReportTitleBlock {
     std::string plumb_version;
     std::string job_file;        // the file's name as given
     std::string job_file_sha256;
+    std::string made_by{};       // the command that made the document, e.g. "plumb advise"; empty: no row
 };
 
 struct VerdictBanner {

@@ -41,6 +41,20 @@ struct HeldAcceleration {
     double duration = 0;      // s, > 0: the whole simulated time
 };
 
+// Slewing (elastic model only): the jib turns about a vertical axis through
+// the slew centre while the trolley runs along it (or a luffing boom's radius
+// changes). The slew centre starts at the origin and rides on the x and y
+// travel channels if the job has them. A slew move is a Move in angle:
+// distance in rad (positive turns from +x toward +y), top_speed in rad/s,
+// acceleration and deceleration in rad/s^2, jerk in rad/s^3. A radius move is
+// a Move of the trolley along the jib in m (positive: outward).
+struct SlewSpec {
+    double initial_radius = 0;        // m, slew centre to the suspension point, > 0
+    double initial_angle = 0;         // rad, jib from +x toward +y
+    std::vector<Move> slew_moves;     // empty: the jib does not turn
+    std::vector<Move> radius_moves;   // empty: the trolley stays at the initial radius
+};
+
 struct SupportMotionSpec {
     std::vector<Move> moves;                 // either moves ...
     std::vector<SpeedSample> speed_history;  // ... or a speed history (exactly one is non-empty)
@@ -58,6 +72,8 @@ struct SupportMotionSpec {
     // rope out: the unstretched fall length grows by it). Empty: at rest.
     std::vector<Move> y_moves;
     std::vector<Move> hoist_moves;
+    // Elastic model only: slewing (then moves and speed_history may be left out).
+    std::optional<SlewSpec> slew;
 };
 
 // The bearing type of the hoist's sheaves, when the job names it instead of an

@@ -6,6 +6,7 @@
 #include <algorithm>
 #include <array>
 #include <cstddef>
+#include <optional>
 #include <vector>
 
 #include <Eigen/Core>
@@ -30,6 +31,10 @@ struct SupportKinematics {
     double rope_length = 0;        // m
     double rope_speed = 0;         // m/s, positive when paying out (lowering)
     double rope_acceleration = 0;  // m/s^2
+    // rad, the jib's direction from +x toward +y when the support slews; none
+    // when it travels on the x and y axes only. Radial and tangential swing
+    // components are taken relative to it.
+    std::optional<double> slew_angle;
 };
 
 // The whole support path as models see it: kinematics at t on a given
@@ -97,23 +102,48 @@ private:
     bool comes_to_rest_ = true;
 };
 
+// Where the jib starts: the suspension point's distance from the slew centre
+// and the jib's direction (rad from +x toward +y).
+struct JibStart {
+    double radius = 0;  // m
+    double angle = 0;   // rad
+};
+
 // The support path as channels, each a SupportMotion (pieces of constant jerk
-// with exact break times): travel along x and y, and the hoist (the rope paid
-// out: rope length = initial length + the channel's position). z is fixed.
+// with exact break times): travel along x and y, the hoist (the rope paid
+// out: rope length = initial length + the channel's position), and for a
+// slewing crane the slew angle (rad: distance is an angle, speed an angular
+// speed) and the radius (the trolley along the jib, m). z is fixed.
+//
+// Slewing: with the slew centre c = (x, y) of the travel channels, the radius
+// r = r0 + radius channel and the slew angle phi = phi0 + slew channel, the
+// suspension point is c + r e_r with e_r = (cos phi, sin phi, 0) and
+// e_t = (-sin phi, cos phi, 0); its velocity c' + r' e_r + r phi' e_t and its
+// acceleration c'' + (r'' - r phi'^2) e_r + (2 r' phi' + r phi'') e_t, all
+// from the channels' exact piece states (docs/model.md, "Slewing").
+//
 // The breaks of all channels are merged into one list; on interval k each
 // channel is on the piece that holds the interval's start, so a jump in any
 // channel is a break and every channel is smooth within an interval.
 class SupportPath final : public SupportTrajectory {
 public:
-    enum Channel : std::size_t { x = 0, y = 1, hoist = 2 };
+    enum Channel : std::size_t { x = 0, y = 1, hoist = 2, slew = 3, radius = 4 };
+    static constexpr std::size_t channel_count = 5;
 
+    // Travel and hoist only: no slewing.
     SupportPath(SupportMotion x_travel, SupportMotion y_travel, SupportMotion hoist, double initial_rope_length);
+    // A slewing crane whose slew centre rides on the travel channels.
+    SupportPath(SupportMotion x_travel, SupportMotion y_travel, SupportMotion hoist, double initial_rope_length,
+                SupportMotion slew, SupportMotion radius, JibStart jib);
     // Today's planar jobs: travel along x, no y travel, no hoisting.
     static SupportPath along_x(SupportMotion x_travel);
 
     SupportKinematics at(double t, std::size_t interval) const override;
     const std::vector<double>& breaks() const override { return breaks_; }
     double end_of_motion() const override;
+
+    bool slewing() const { return slewing_; }
+    const JibStart& jib_start() const { return jib_; }
 
     const SupportMotion& channel(Channel c) const { return channels_[c]; }
     // One channel on interval k of the merged breaks (one table lookup: the hot path).
@@ -125,10 +155,12 @@ public:
     }
 
 private:
-    std::array<SupportMotion, 3> channels_;
+    std::array<SupportMotion, channel_count> channels_;
     double initial_rope_length_;
+    bool slewing_ = false;
+    JibStart jib_;
     std::vector<double> breaks_;
-    std::array<std::vector<std::size_t>, 3> piece_;  // piece_[c][k]: channel c's piece on interval k
+    std::array<std::vector<std::size_t>, channel_count> piece_;  // piece_[c][k]: channel c's piece on interval k
 };
 
 }  // namespace plumb

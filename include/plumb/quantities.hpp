@@ -23,10 +23,15 @@ enum class Quantity : std::size_t {
     support_position,
     support_speed,
     support_acceleration,
+    slew_angle,
     hook_rope_angle,
     hook_rope_rate,
     load_angle,
     load_rate,
+    hook_rope_radial_angle,
+    hook_rope_tangential_angle,
+    load_radial_angle,
+    load_tangential_angle,
     hook_x,
     hook_z,
     load_x,
@@ -41,7 +46,7 @@ enum class Quantity : std::size_t {
     dynamic_factor,
     rigging_dynamic_factor,
 };
-inline constexpr std::size_t quantity_count = 20;
+inline constexpr std::size_t quantity_count = 25;
 
 constexpr std::size_t index_of(Quantity q) { return static_cast<std::size_t>(q); }
 
@@ -76,6 +81,10 @@ struct LiftScales {
 // the reeving and the drum are not counted. e = 1 gives W / n.
 double lead_line_factor(int parts_of_line, double sheave_efficiency);
 
+// Which lifts report a quantity: every lift, or only one whose support slews
+// (the swing's components relative to the jib).
+enum class QuantityScope { every_lift, slewing };
+
 // Which static load a simulated quantity is measured against, if any.
 enum class StaticReference { none, hoist_rope_tension, rigging_tension };
 
@@ -97,6 +106,7 @@ struct QuantitySpec {
     StaticReference static_reference;  // simulated quantities only; derived ones derive it
     bool static_in_json;               // the JSON lists "static_<key>"
     int residual_rank;                 // order in the residual section and JSON
+    QuantityScope scope;
 };
 
 // The whole table, in the order of index_of(Quantity).
@@ -105,6 +115,10 @@ const QuantitySpec& quantity_spec(Quantity q);
 
 inline bool has_record(const QuantitySpec& s, Record r) { return (s.records & r) != 0; }
 inline bool is_derived(const QuantitySpec& s) { return s.read == nullptr; }
+// Whether the outputs of a lift with this motion list the quantity.
+inline bool reported_for(const QuantitySpec& s, const SupportMotionSpec& motion) {
+    return s.scope == QuantityScope::every_lift || motion.slew.has_value();
+}
 
 // The value the records track: the read value, or its magnitude. Only for
 // simulated (not derived) quantities.

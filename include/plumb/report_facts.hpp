@@ -26,6 +26,18 @@ struct MotionDigest {
 };
 MotionDigest digest_motion(const SupportMotionSpec& spec);
 
+// Facts of a slewing motion (motion.slew) for the digest.
+struct SlewDigest {
+    std::size_t slew_moves = 0;
+    std::size_t radius_moves = 0;
+    double initial_angle = 0;    // rad
+    double end_angle = 0;        // rad
+    double peak_slew_rate = 0;   // rad/s
+    double initial_radius = 0;   // m
+    double end_radius = 0;       // m
+};
+SlewDigest digest_slew(const SlewSpec& slew);
+
 // The limits a job may give: JSON key, words for the summary, unit.
 struct LimitRow {
     const char* key;

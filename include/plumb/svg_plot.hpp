@@ -106,12 +106,20 @@ struct PlotPanel {
     std::string limits_legend = "limit";  // the legend's word for the lines, e.g. "WLL / static weight"
 };
 
+// A vertical line at one x value across every panel: an event such as the
+// moment a stop is commanded.
+struct TimeMark {
+    double at = 0.0;
+    std::string label;  // drawn at the line's top in the first panel
+};
+
 // One or more panels, one above the other, sharing the x (time) axis.
 struct TimePlot {
     std::string title;
     std::string x_quantity = "time";
     std::string x_unit = "s";
     std::vector<PlotPanel> panels;
+    std::vector<TimeMark> marks;
     double width = 720.0;         // user units
     double panel_height = 200.0;  // plotting area of a panel that sets no height
 };
@@ -145,6 +153,55 @@ struct PathPlot {
 // Non-finite path points leave gaps; a non-finite obstacle coordinate is a
 // caller's error and throws std::invalid_argument.
 std::string render_path_plot(const PathPlot& plot);
+
+// ---- Verdict map -------------------------------------------------------------
+
+// What a cell of a verdict map holds; each is drawn with its own shape and
+// hatching as well as its own fill, so that the map reads in grey print.
+enum class CellVerdict { pass, caution, fail, error, not_run };
+const char* cell_verdict_words(CellVerdict v);  // "PASS", "CAUTION", "FAIL", "ERROR", "not run"
+
+// Verdicts over a grid of two varied fields: x along the columns, y up the
+// rows. cells[row][column], row i at y_values[i], column j at x_values[j];
+// every row has x_values.size() cells. Each cell is a <g class="cell"> whose
+// aria-label names its values and verdict.
+struct VerdictMap {
+    std::string title;
+    std::string x_quantity, x_unit;
+    std::string y_quantity, y_unit;
+    std::vector<double> x_values;  // equally spaced (one value allowed)
+    std::vector<double> y_values;
+    std::vector<std::vector<CellVerdict>> cells;
+    double width = 720.0;
+    double max_height = 440.0;  // of the plotting area
+};
+
+// Throws std::invalid_argument if the cells do not match the values.
+std::string render_verdict_map(const VerdictMap& map);
+
+// ---- Histogram -----------------------------------------------------------------
+
+// The distribution of a sample: bins of nice width (nice_ticks.hpp) over the
+// finite values, bars with their counts, and vertical limit lines. Each bar
+// is a <g class="bin"> whose aria-label starts with its count.
+struct Histogram {
+    std::string title;
+    std::string quantity, unit;
+    std::vector<double> values;     // non-finite values are not binned (the caller says how many)
+    std::vector<LimitLine> limits;  // vertical, at x = value
+    int target_bins = 20;
+    double width = 720.0;
+    double height = 180.0;  // of the plotting area
+};
+
+struct HistogramBins {
+    double low = 0.0, width = 1.0;  // bin k holds [low + k width, low + (k + 1) width)
+    std::vector<std::size_t> counts;
+};
+// The bins render_histogram draws; `extra` values (the limit lines) widen the range.
+HistogramBins histogram_bins(const std::vector<double>& values, const std::vector<double>& extra, int target_bins);
+
+std::string render_histogram(const Histogram& histogram);
 
 // Downsampling for size: the indices of the points to keep when a series of
 // x ascending is drawn into `columns` columns over [x_low, x_high]. In each

@@ -21,6 +21,8 @@ enum class Dimension {
     jerk,          // m/s^3
     angle,         // rad
     angular_rate,  // rad/s
+    angular_acceleration,  // rad/s^2
+    angular_jerk,  // rad/s^3
     ratio,         // dimensionless fraction (0.9, or "90 %")
 };
 
@@ -48,8 +50,8 @@ inline constexpr double degree = std::numbers::pi / 180.0;      // rad
 enum class JobUnits { none, si, us_customary };
 
 // The unit a bare number is read in under a declared system: si: m, kg, N, s,
-// m/s, m/s^2, m/s^3, deg, deg/s; us: ft, lb, lbf, s, ft/min, ft/s^2, ft/s^3,
-// deg, deg/s. Empty for a ratio and for JobUnits::none.
+// m/s, m/s^2, m/s^3, deg, deg/s, deg/s^2, deg/s^3; us: ft, lb, lbf, s, ft/min,
+// ft/s^2, ft/s^3, deg, deg/s, deg/s^2, deg/s^3. Empty for a ratio and for JobUnits::none.
 std::string_view bare_number_unit(Dimension d, JobUnits u);
 
 // Thrown by parse_quantity; the job-file parser adds the file, line and key.

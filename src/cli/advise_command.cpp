@@ -3,12 +3,14 @@
 // and the model's assumptions. Exit status as for check: 1 when the planned
 // motion fails a check.
 #include "advise_command.hpp"
+#include "report_option.hpp"
 
 #include <cstdio>
 #include <iostream>
 #include <sstream>
 
 #include "plumb/advice.hpp"
+#include "plumb/answer_reports.hpp"
 #include "plumb/errors.hpp"
 #include "plumb/job_file.hpp"
 #include "plumb/output_files.hpp"
@@ -92,19 +94,17 @@ std::string scale_text(const Job& job, const AccelerationAdvice& a, const char* 
     return out.str();
 }
 
-std::string drive_limits_text(const Job& job) {
-    if (job.motion.moves.empty()) return "  Not searched: the motion is a speed history, not planned moves.\n";
-    return scale_text(job, largest_acceleration_scale(job), "accelerations and decelerations", scaled_acceleration) +
-           scale_text(job, largest_top_speed_scale(job), "top speeds", scaled_top_speed);
+std::string drive_limits_text(const Job& job, const AdviceFindings& found) {
+    if (!found.acceleration || !found.top_speed) return "  Not searched: the motion is a speed history, not planned moves.\n";
+    return scale_text(job, *found.acceleration, "accelerations and decelerations", scaled_acceleration) +
+           scale_text(job, *found.top_speed, "top speeds", scaled_top_speed);
 }
 
-std::string stop_text(const Job& job) {
-    if (!job.motion.emergency_deceleration) {
+std::string stop_text(const AdviceFindings& found) {
+    if (!found.stop) {
         return "  Not searched: the job file gives no motion.emergency_deceleration (see docs/job-file.md).\n";
     }
-    const SupportMotion planned = SupportMotion::from_spec(job.motion);
-    const StopAdvice stop = worst_case_stop(job, planned, *job.motion.emergency_deceleration, 0.0,
-                                            planned.end_of_motion());
+    const StopAdvice& stop = *found.stop;
     const MotionOutcome& o = stop.outcome;
     std::ostringstream out;
     out << "  Emergency deceleration " << fixed(stop.deceleration, 3) << " m/s^2; worst moment to stop: t = "
@@ -151,10 +151,24 @@ std::string cautions_text(const ModelDescription& model) {
     for (const std::string& c : lift_cautions()) out += "  - " + c + "\n";
     out += "\nModel assumptions\n";
     for (const std::string& a : model.assumptions) out += "  - " + a + "\n";
-    out += "  - Advice: shapers and whole-period moves are designed from the linearised modes and every option is "
-           "checked by a full nonlinear simulation; an emergency stop is an immediate step to its deceleration "
-           "(a real drive's reaction time and brake ramp are the manufacturer's data).\n";
+    out += "  - " + std::string(advice_method_assumption) + "\n";
     return out;
+}
+
+// Every search once: the text and the report read the same results.
+AdviceFindings find_advice(const Job& job) {
+    AdviceFindings found;
+    found.options = motion_options(job);
+    found.chosen = fastest_passing(found.options);
+    if (!job.motion.moves.empty()) {
+        found.acceleration = largest_acceleration_scale(job);
+        found.top_speed = largest_top_speed_scale(job);
+    }
+    if (job.motion.emergency_deceleration) {
+        const SupportMotion planned = SupportMotion::from_spec(job.motion);
+        found.stop = worst_case_stop(job, planned, *job.motion.emergency_deceleration, 0.0, planned.end_of_motion());
+    }
+    return found;
 }
 
 }  // namespace
@@ -166,32 +180,45 @@ CLI::App* add_advise_command(CLI::App& app, AdviseOptions& options) {
     advise->add_option("--write-motion", options.motion_path,
                        "Write the fastest passing motion as a speed-history CSV a job file can take")
         ->option_text("FILE");
+    add_report_option(*advise, options.report_path);
     return advise;
 }
 
 int run_advise(const AdviseOptions& options) {
     if (!options.motion_path.empty()) require_replaceable_output(options.motion_path);
+    check_report_path(options.report_path, options.job_path);
+    if (!options.report_path.empty() && same_file(options.report_path, options.motion_path)) {
+        throw UsageError("--report and --write-motion name the same file '" + options.report_path + "'");
+    }
     const Job job = load_job_file(options.job_path);
     const ModelDescription model = describe_lift_model(job);
-    const std::vector<MotionOutcome> options_found = motion_options(job);
-    const std::optional<std::size_t> chosen = fastest_passing(options_found);
+    const AdviceFindings found = find_advice(job);
+    const std::vector<MotionOutcome>& options_found = found.options;
+    const std::optional<std::size_t> chosen = found.chosen;
 
     std::string out = "plumb advise: " + job.title + "\n";
-    out += "\nLargest passing drive settings (bisection over full simulations)\n" + drive_limits_text(job);
+    out += "\nLargest passing drive settings (bisection over full simulations)\n" + drive_limits_text(job, found);
     out += "\nMotion options (* = fastest that passes; all checked by full simulation)\n";
     out += options_table(options_found, chosen);
     if (chosen) out += "  Fastest passing motion: " + options_found[*chosen].label + "\n";
     else out += "  No option passes every check: change the lift (limits, rigging, hook height), not only the drive.\n";
-    out += "\nWorst-case emergency stop\n" + stop_text(job);
+    out += "\nWorst-case emergency stop\n" + stop_text(found);
     out += "\nGuidance\n" + guidance_text(job, options_found);
     out += cautions_text(model);
 
+    std::vector<std::pair<std::string, std::string>> files;
     if (!options.motion_path.empty()) {
         if (!chosen) throw UsageError("--write-motion: no option passes every check, so no motion is written");
-        write_files_atomically({{options.motion_path,
-                                 speed_history_csv(options_found[*chosen].motion, options_found[*chosen].label)}});
-        out += "\nWrote " + options.motion_path + "\n";
+        files.emplace_back(options.motion_path,
+                           speed_history_csv(options_found[*chosen].motion, options_found[*chosen].label));
     }
+    if (!options.report_path.empty()) {
+        files.emplace_back(options.report_path,
+                           format_advice_report(assess_lift(job, true), found, report_provenance(job, PLUMB_VERSION),
+                                                UnitSystem::si));
+    }
+    write_files_atomically(files);
+    for (const auto& [path, content] : files) out += "\nWrote " + path + "\n";
     std::cout << out << std::flush;
     return options_found.front().passes() ? static_cast<int>(ExitStatus::all_checks_pass)
                                           : static_cast<int>(ExitStatus::check_failed);

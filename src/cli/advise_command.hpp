@@ -10,6 +10,7 @@ namespace plumb_cli {
 struct AdviseOptions {
     std::string job_path;
     std::string motion_path;  // --write-motion: the chosen motion as a speed-history CSV
+    std::string report_path;  // --report: the advice as a self-contained HTML file
 };
 
 CLI::App* add_advise_command(CLI::App& app, AdviseOptions& options);

@@ -15,6 +15,7 @@
 #include <CLI/CLI.hpp>
 
 #include "advise_command.hpp"
+#include "report_option.hpp"
 #include "sweep_command.hpp"
 #include "plumb/assessment.hpp"
 #include "plumb/errors.hpp"
@@ -74,14 +75,7 @@ void add_job_argument(CLI::App& command, Options& options) {
         ->check(CLI::ExistingFile);
 }
 
-// Two names of one file, as far as the file system can tell before writing.
-bool same_file(const std::string& a, const std::string& b) {
-    std::error_code ea, eb;
-    const std::filesystem::path pa = std::filesystem::weakly_canonical(a, ea);
-    const std::filesystem::path pb = std::filesystem::weakly_canonical(b, eb);
-    if (ea || eb) return a == b;
-    return pa == pb;
-}
+using plumb_cli::same_file;
 
 // "-" names standard output rather than a file.
 bool is_standard_output(const std::string& path) { return path == "-"; }

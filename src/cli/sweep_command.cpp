@@ -1,6 +1,7 @@
 // `plumb sweep`: a grid of cases from one job file, on every core, as CSV;
 // `plumb sweep-merge`: shard CSVs into the CSV one run would have written.
 #include "sweep_command.hpp"
+#include "report_option.hpp"
 
 #include <unistd.h>
 
@@ -9,7 +10,9 @@
 #include <iostream>
 #include <thread>
 
+#include "plumb/answer_reports.hpp"
 #include "plumb/errors.hpp"
+#include "plumb/job_file.hpp"
 #include "plumb/output_files.hpp"
 #include "plumb/scatter.hpp"
 #include "plumb/sweep.hpp"
@@ -30,6 +33,7 @@ CLI::App* add_sweep_command(CLI::App& app, SweepOptions& options) {
     sweep->add_option("--shard", options.shard, "Run only shard I of N (every N-th case); merge with sweep-merge")
         ->option_text("I/N");
     sweep->add_option("--threads", options.threads, "Threads (default: every core)")->check(CLI::Range(0, 1024));
+    add_report_option(*sweep, options.report_path);
     return sweep;
 }
 
@@ -48,6 +52,19 @@ void emit(const std::string& path, const std::string& content) {
     else plumb::write_files_atomically({{path, content}});
 }
 
+// The job file as written, assessed: its inputs and checks frame a report of its cases.
+plumb::LiftAssessment base_assessment(const plumb::Job& job) { return plumb::assess_lift(job, false); }
+
+// The outputs all or none: the CSV to its file (or standard output), the report to its file.
+void write_outputs(const SweepOptions& options, const std::string& csv, const std::string& report) {
+    std::vector<std::pair<std::string, std::string>> files;
+    if (!options.output_path.empty()) files.emplace_back(options.output_path, csv);
+    if (!options.report_path.empty()) files.emplace_back(options.report_path, report);
+    plumb::write_files_atomically(files);
+    if (options.output_path.empty()) std::cout << csv << std::flush;
+    if (!options.report_path.empty()) std::cerr << "Wrote " << options.report_path << "\n";
+}
+
 void show_progress(std::size_t done, std::size_t total, std::chrono::steady_clock::time_point start) {
     const double elapsed = std::chrono::duration<double>(std::chrono::steady_clock::now() - start).count();
     const double left = done > 0 ? elapsed * static_cast<double>(total - done) / static_cast<double>(done) : 0.0;
@@ -59,6 +76,10 @@ void show_progress(std::size_t done, std::size_t total, std::chrono::steady_cloc
 
 int run_sweep_command(const SweepOptions& options) {
     if (!options.output_path.empty()) plumb::require_replaceable_output(options.output_path);
+    check_report_path(options.report_path, options.job_path);
+    if (!options.report_path.empty() && same_file(options.report_path, options.output_path)) {
+        throw plumb::UsageError("--report and --output name the same file '" + options.report_path + "'");
+    }
     std::vector<plumb::VariedField> fields;
     for (const std::string& v : options.vary) fields.push_back(plumb::parse_varied_field(v));
     const plumb::SweepShard shard = plumb::parse_shard(options.shard);
@@ -72,7 +93,13 @@ int run_sweep_command(const SweepOptions& options) {
     const plumb::SweepResult result = plumb::run_sweep(options.job_path, fields, shard, threads, progress);
     if (terminal) std::fprintf(stderr, "\r%60s\r", "");
 
-    emit(options.output_path, plumb::format_sweep_csv(fields, result));
+    std::string report;
+    if (!options.report_path.empty()) {
+        const plumb::Job job = plumb::load_job_file(options.job_path);
+        report = plumb::format_sweep_report(base_assessment(job), fields, result,
+                                            plumb::report_provenance(job, PLUMB_VERSION), plumb::UnitSystem::si);
+    }
+    write_outputs(options, plumb::format_sweep_csv(fields, result), report);
     if (!options.output_path.empty()) {
         std::cout << "Wrote " << options.output_path << " (" << result.cases.size() << " of " << result.total_cases
                   << " cases)\n";
@@ -103,14 +130,25 @@ CLI::App* add_scatter_command(CLI::App& app, SweepOptions& options) {
     scatter->add_option("--samples", options.samples, "Number of Latin hypercube samples (default 1000)");
     scatter->add_option("--seed", options.seed, "Seed of the random numbers (default 1): the same seed, the same result");
     scatter->add_option("--threads", options.threads, "Threads (default: every core)")->check(CLI::Range(0, 1024));
+    add_report_option(*scatter, options.report_path);
     return scatter;
 }
 
 int run_scatter_command(const SweepOptions& options) {
     const int threads = options.threads > 0 ? options.threads
                                             : static_cast<int>(std::max(1u, std::thread::hardware_concurrency()));
+    check_report_path(options.report_path, options.job_path);
     const plumb::ScatterResult r = plumb::run_scatter(options.job_path, options.samples, options.seed, threads);
-    std::cout << plumb::format_scatter(r) << std::flush;
+    if (!options.report_path.empty()) {
+        const plumb::Job job = plumb::load_job_file(options.job_path);
+        plumb::write_files_atomically(
+            {{options.report_path, plumb::format_scatter_report(base_assessment(job), r, options.seed,
+                                                                plumb::report_provenance(job, PLUMB_VERSION),
+                                                                plumb::UnitSystem::si)}});
+    }
+    std::cout << plumb::format_scatter(r);
+    if (!options.report_path.empty()) std::cout << "Wrote " << options.report_path << "\n";
+    std::cout << std::flush;
     for (const plumb::CheckFailure& f : r.checks)
         if (f.failures > 0) return static_cast<int>(plumb::ExitStatus::check_failed);
     return static_cast<int>(plumb::ExitStatus::all_checks_pass);

@@ -13,6 +13,7 @@ struct SweepOptions {
     std::string job_path;
     std::vector<std::string> vary;
     std::string output_path;  // "": standard output
+    std::string report_path;  // --report: the HTML report; "": none
     std::string shard = "1/1";
     int threads = 0;          // 0: every core
     std::vector<std::string> shard_files;  // sweep-merge

@@ -49,5 +49,16 @@ inline constexpr double max_output_step = 10;           // s
 inline constexpr double max_duration_after = 3600;      // s
 inline constexpr double max_dynamic_factor = 10;
 inline constexpr double max_length_limit = 1000;        // m, load_offset and residual_swing limits
+// Slewing (motion.slew); angles in rad: 1 deg = 0.01745 rad.
+inline constexpr double min_slew_radius = 0.1;          // m, slew centre to the suspension point
+inline constexpr double max_slew_radius = 200;          // m
+inline constexpr double min_slew_angle = 1e-4;          // rad (about 0.006 deg), one slew move
+inline constexpr double max_slew_angle = 20 * 3.141592653589793;  // rad: ten turns in one move
+inline constexpr double min_slew_speed = 1e-4;          // rad/s (about 0.006 deg/s)
+inline constexpr double max_slew_speed = 1;             // rad/s (about 57 deg/s, 9.5 rpm)
+inline constexpr double min_slew_acceleration = 1e-5;   // rad/s^2
+inline constexpr double max_slew_acceleration = 1;      // rad/s^2
+inline constexpr double min_slew_jerk = 1e-5;           // rad/s^3
+inline constexpr double max_slew_jerk = 10;             // rad/s^3
 
 }  // namespace plumb::input

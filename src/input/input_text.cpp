@@ -63,6 +63,8 @@ std::string show(double si, Dimension d) {
     switch (d) {
         case Dimension::angle: return number_text(si * 180 / pi) + " deg";
         case Dimension::angular_rate: return number_text(si * 180 / pi) + " deg/s";
+        case Dimension::angular_acceleration: return number_text(si * 180 / pi) + " deg/s^2";
+        case Dimension::angular_jerk: return number_text(si * 180 / pi) + " deg/s^3";
         case Dimension::ratio: return number_text(si * 100) + " %";
         case Dimension::force:
         case Dimension::load:

@@ -52,8 +52,9 @@ const KeyList top_keys{"job", "motion", "hoist", "hook_block", "rigging",
                        "scatter"};  // uncertain inputs: read by plumb scatter only (docs/scatter.md)
 const KeyList job_keys{"title", "reference"};
 const KeyList motion_keys{"moves", "speed_history", "fixed_support", "emergency_deceleration", "y_moves", "hoist_moves",
-                          "held_acceleration"};
+                          "held_acceleration", "slew"};
 const KeyList held_keys{"acceleration", "duration"};
+const KeyList slew_keys{"initial_radius", "initial_angle", "slew_moves", "radius_moves"};
 const KeyList move_keys{"distance", "top_speed", "acceleration", "deceleration", "jerk", "pause_before"};
 const KeyList hoist_keys{"rope_length", "parts_of_line", "rated_load", "rope_wll",
                          "rope_minimum_breaking_load", "rated_load_basis", "sheave_efficiency", "sheave_bearing"};
@@ -84,6 +85,7 @@ const std::vector<SectionKeys> all_sections{
     {"rigging", &rigging_keys},         {"load", &load_keys},
     {"environment", &environment_keys}, {"limits", &limits_keys},
     {"analysis", &analysis_keys},       {"rope", &rope_keys},
+    {"motion.slew", &slew_keys},
 };
 
 // ---------------------------------------------------------------- text
@@ -121,6 +123,8 @@ std::string_view example_unit(Dimension d) {
         case Dimension::speed: return "m/min";
         case Dimension::angle: return "deg";
         case Dimension::angular_rate: return "deg/s";
+        case Dimension::angular_acceleration: return "deg/s^2";
+        case Dimension::angular_jerk: return "deg/s^3";
         default: return si_unit(d);
     }
 }
@@ -357,31 +361,47 @@ void read_job(const Section& s, Job& job) {
 
 // ---------------------------------------------------------------- motion
 
-Move read_move(const Section& s) {
+// What a move is measured in, with its plausibility bounds: travel, trolley
+// and hoist moves in m, slew moves in angle (distance an angle, top speed an
+// angular speed, and so on).
+struct MoveKind {
+    Dimension distance, speed, acceleration, jerk;
+    double min_distance, max_distance, min_speed, max_speed, min_acceleration, max_acceleration, min_jerk,
+        max_jerk;
+};
+constexpr MoveKind travel_move{Dimension::length, Dimension::speed, Dimension::acceleration, Dimension::jerk,
+                               min_move_distance, max_move_distance, min_top_speed, max_top_speed,
+                               min_acceleration, max_acceleration, min_jerk, max_jerk};
+constexpr MoveKind slew_move{Dimension::angle, Dimension::angular_rate, Dimension::angular_acceleration,
+                             Dimension::angular_jerk, min_slew_angle, max_slew_angle, min_slew_speed,
+                             max_slew_speed, min_slew_acceleration, max_slew_acceleration, min_slew_jerk,
+                             max_slew_jerk};
+
+Move read_move(const Section& s, const MoveKind& kind) {
     Move m;
-    m.distance = s.quantity("distance", Dimension::length);
+    m.distance = s.quantity("distance", kind.distance);
     if (m.distance == 0)
         s.fail_at("distance", "must not be zero: a move travels some distance (negative to travel backwards)");
-    s.check_plausible("distance", std::fabs(m.distance), Dimension::length, min_move_distance, max_move_distance,
+    s.check_plausible("distance", std::fabs(m.distance), kind.distance, kind.min_distance, kind.max_distance,
                       "move distance");
 
-    m.top_speed = s.quantity("top_speed", Dimension::speed);
-    s.check_positive("top_speed", m.top_speed, Dimension::speed);
-    s.check_plausible("top_speed", m.top_speed, Dimension::speed, min_top_speed, max_top_speed, "top speed");
+    m.top_speed = s.quantity("top_speed", kind.speed);
+    s.check_positive("top_speed", m.top_speed, kind.speed);
+    s.check_plausible("top_speed", m.top_speed, kind.speed, kind.min_speed, kind.max_speed, "top speed");
 
-    m.acceleration = s.quantity("acceleration", Dimension::acceleration);
-    s.check_positive("acceleration", m.acceleration, Dimension::acceleration);
-    s.check_plausible("acceleration", m.acceleration, Dimension::acceleration, min_acceleration,
-                      max_acceleration, "acceleration");
+    m.acceleration = s.quantity("acceleration", kind.acceleration);
+    s.check_positive("acceleration", m.acceleration, kind.acceleration);
+    s.check_plausible("acceleration", m.acceleration, kind.acceleration, kind.min_acceleration,
+                      kind.max_acceleration, "acceleration");
 
-    m.deceleration = s.optional_quantity("deceleration", Dimension::acceleration).value_or(m.acceleration);
-    s.check_positive("deceleration", m.deceleration, Dimension::acceleration);
-    s.check_plausible("deceleration", m.deceleration, Dimension::acceleration, min_acceleration,
-                      max_acceleration, "deceleration");
+    m.deceleration = s.optional_quantity("deceleration", kind.acceleration).value_or(m.acceleration);
+    s.check_positive("deceleration", m.deceleration, kind.acceleration);
+    s.check_plausible("deceleration", m.deceleration, kind.acceleration, kind.min_acceleration,
+                      kind.max_acceleration, "deceleration");
 
-    if (const auto jerk = s.optional_quantity("jerk", Dimension::jerk)) {
-        s.check_positive("jerk", *jerk, Dimension::jerk);
-        s.check_plausible("jerk", *jerk, Dimension::jerk, min_jerk, max_jerk, "jerk");
+    if (const auto jerk = s.optional_quantity("jerk", kind.jerk)) {
+        s.check_positive("jerk", *jerk, kind.jerk);
+        s.check_plausible("jerk", *jerk, kind.jerk, kind.min_jerk, kind.max_jerk, "jerk");
         m.jerk = *jerk;
     }
 
@@ -408,8 +428,8 @@ void read_speed_history(const Section& s, const Entry& e, SupportMotionSpec& mot
     motion.speed_history_file = printable(shown);  // the job's folder may have any bytes in its name
 }
 
-// A list of moves (motion.moves, y_moves, hoist_moves), each checked.
-std::vector<Move> read_move_list(const Section& s, const Entry& list) {
+// A list of moves (motion.moves, y_moves, hoist_moves, the slew's), each checked.
+std::vector<Move> read_move_list(const Section& s, const Entry& list, const MoveKind& kind = travel_move) {
     const Entry* moves = &list;
     if (!moves->value.IsSequence())
         s.fail_at(*moves, "expected a list of moves (each starting with '- distance:'), got " +
@@ -424,7 +444,7 @@ std::vector<Move> read_move_list(const Section& s, const Entry& list) {
         ++index;  // 1-based: moves[1] is the first move
         const std::string path = moves->path + "[" + std::to_string(index) + "]";
         const YAML::Mark mark = item.Mark().is_null() ? moves->mark() : item.Mark();
-        result.push_back(read_move(Section(s.ctx(), item, path, mark, move_keys)));
+        result.push_back(read_move(Section(s.ctx(), item, path, mark, move_keys), kind));
     }
     // Upper bound of the moves' duration: coast the whole way plus both speed changes.
     double duration = 0;
@@ -461,19 +481,47 @@ HeldAcceleration read_held_acceleration(const Section& s) {
     return h;
 }
 
+// motion.slew: the jib's start and its slew and radius moves (elastic model only).
+SlewSpec read_slew(const Section& s) {
+    SlewSpec slew;
+    slew.initial_radius = s.quantity("initial_radius", Dimension::length);
+    s.check_plausible("initial_radius", slew.initial_radius, Dimension::length, min_slew_radius, max_slew_radius,
+                      "slewing radius");
+    slew.initial_angle = s.optional_quantity("initial_angle", Dimension::angle).value_or(0.0);
+    s.check_range("initial_angle", slew.initial_angle, Dimension::angle, -2 * pi, true, 2 * pi, true);
+    const Entry* turns = s.find("slew_moves");
+    const Entry* trolley = s.find("radius_moves");
+    if (turns == nullptr && trolley == nullptr)
+        fail(s.ctx(), s.mark(), s.path(), "no slewing motion: give slew_moves (turns of the jib), radius_moves "
+                                          "(the trolley along the jib) or both");
+    if (turns != nullptr) slew.slew_moves = read_move_list(s, *turns, slew_move);
+    if (trolley != nullptr) slew.radius_moves = read_move_list(s, *trolley);
+    double radius = slew.initial_radius;
+    for (const Move& m : slew.radius_moves) {
+        radius += m.distance;
+        if (radius < min_slew_radius || radius > max_slew_radius)
+            s.fail_at(*trolley, "the radius moves take the radius to " + show(radius, Dimension::length) +
+                                    ", outside " + show(min_slew_radius, Dimension::length) + " to " +
+                                    show(max_slew_radius, Dimension::length));
+    }
+    return slew;
+}
+
 void read_motion(const Section& s, Job& job) {
     const Entry* moves = s.find("moves");
     const Entry* history = s.find("speed_history");
     if (const Entry* held = s.find("held_acceleration")) {
-        for (const char* key : {"moves", "speed_history", "fixed_support", "emergency_deceleration"})
+        for (const char* key : {"moves", "speed_history", "fixed_support", "emergency_deceleration", "slew"})
             if (const Entry* e = s.find(key))
                 s.fail_at_key(*e, std::string("'") + key + "' cannot go with held_acceleration (an acceleration "
                                   "held to the end of the simulation, no moves and no stop): give only one of them");
         job.motion.held_acceleration = read_held_acceleration(s.section(*held, held_keys));
     }
+    const Entry* slew = s.find("slew");
     if (const Entry* fixed = s.find("fixed_support")) {
-        if (moves != nullptr || history != nullptr)
-            s.fail_at_key(*fixed, "a fixed support has no moves and no speed history: give only one of them");
+        if (moves != nullptr || history != nullptr || slew != nullptr)
+            s.fail_at_key(*fixed, "a fixed support has no moves, no speed history and no slewing: give only one "
+                                  "of them");
         if (trim(s.text(*fixed)) != "true")
             s.fail_at(*fixed, "expected 'true' (the support stays at rest: a free swing from the load's "
                               "initial_angle and initial_rate), or leave the key out");
@@ -482,11 +530,11 @@ void read_motion(const Section& s, Job& job) {
     }
     if (moves != nullptr && history != nullptr)
         s.fail_at_key(*history, "give either moves or speed_history, not both");
-    if (moves == nullptr && history == nullptr && !job.motion.held_acceleration)
+    if (moves == nullptr && history == nullptr && slew == nullptr && !job.motion.held_acceleration)
         fail(s.ctx(), s.mark(), s.path(),
-             "no support motion: give moves (a list of travel moves), speed_history (a CSV file), "
-             "fixed_support: true (no motion: a free swing) or held_acceleration (a constant acceleration "
-             "to the end of the simulation)");
+             "no support motion: give moves (a list of travel moves), speed_history (a CSV file), slew "
+             "(slewing, elastic model), fixed_support: true (no motion: a free swing) or held_acceleration "
+             "(a constant acceleration to the end of the simulation)");
 
     if (const auto stop = s.optional_quantity("emergency_deceleration", Dimension::acceleration)) {
         s.check_positive("emergency_deceleration", *stop, Dimension::acceleration);
@@ -498,6 +546,7 @@ void read_motion(const Section& s, Job& job) {
     // (distance > 0 pays rope out, lowering the hook).
     if (const Entry* e = s.find("y_moves")) job.motion.y_moves = read_move_list(s, *e);
     if (const Entry* e = s.find("hoist_moves")) job.motion.hoist_moves = read_move_list(s, *e);
+    if (slew != nullptr) job.motion.slew = read_slew(s.section(*slew, slew_keys));
     if (history != nullptr) read_speed_history(s, *history, job.motion);
     else if (moves != nullptr) job.motion.moves = read_move_list(s, *moves);
 }
@@ -839,10 +888,10 @@ RopeElasticity read_rope(const Section& s) {
     return r;
 }
 
-// Travel along y and hoisting are the elastic model's; the hoist never takes
-// the rope shorter than a plausible length.
+// Travel along y, hoisting and slewing are the elastic model's; the hoist never
+// takes the rope shorter than a plausible length.
 void check_channels(const Section& motion, const Job& job) {
-    for (const char* key : {"y_moves", "hoist_moves"}) {
+    for (const char* key : {"y_moves", "hoist_moves", "slew"}) {
         const Entry* e = motion.find(key);
         if (e != nullptr && job.analysis.model != SwingModelChoice::elastic)
             motion.fail_at_key(*e, std::string("'") + key + "' needs the elastic model (analysis.model: elastic); "

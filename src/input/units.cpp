@@ -80,6 +80,16 @@ constexpr std::array unit_table{
     UnitDef{"rad/s", Dimension::angular_rate, 1, 1},
     UnitDef{"deg/s", Dimension::angular_rate, degree, 1},
 
+    UnitDef{"rad/s^2", Dimension::angular_acceleration, 1, 1},
+    UnitDef{"rad/s2", Dimension::angular_acceleration, 1, 1},
+    UnitDef{"deg/s^2", Dimension::angular_acceleration, degree, 1},
+    UnitDef{"deg/s2", Dimension::angular_acceleration, degree, 1},
+
+    UnitDef{"rad/s^3", Dimension::angular_jerk, 1, 1},
+    UnitDef{"rad/s3", Dimension::angular_jerk, 1, 1},
+    UnitDef{"deg/s^3", Dimension::angular_jerk, degree, 1},
+    UnitDef{"deg/s3", Dimension::angular_jerk, degree, 1},
+
     UnitDef{"%", Dimension::ratio, 1, 100},
 };
 
@@ -178,6 +188,8 @@ std::string_view si_unit(Dimension d) {
         case Dimension::jerk: return "m/s^3";
         case Dimension::angle: return "rad";
         case Dimension::angular_rate: return "rad/s";
+        case Dimension::angular_acceleration: return "rad/s^2";
+        case Dimension::angular_jerk: return "rad/s^3";
         case Dimension::ratio: return "";
     }
     return "";
@@ -197,6 +209,8 @@ std::string_view bare_number_unit(Dimension d, JobUnits u) {
         case Dimension::jerk: return us ? "ft/s^3" : "m/s^3";
         case Dimension::angle: return "deg";
         case Dimension::angular_rate: return "deg/s";
+        case Dimension::angular_acceleration: return "deg/s^2";
+        case Dimension::angular_jerk: return "deg/s^3";
         case Dimension::ratio: return "";
     }
     return "";
@@ -214,6 +228,8 @@ std::string_view dimension_name(Dimension d) {
         case Dimension::jerk: return "a jerk";
         case Dimension::angle: return "an angle";
         case Dimension::angular_rate: return "an angular rate";
+        case Dimension::angular_acceleration: return "an angular acceleration";
+        case Dimension::angular_jerk: return "an angular jerk";
         case Dimension::ratio: return "a ratio";
     }
     return "a quantity";
@@ -231,6 +247,8 @@ std::string accepted_units(Dimension d) {
         case Dimension::jerk: return "m/s^3, ft/s^3";
         case Dimension::angle: return "deg, rad";
         case Dimension::angular_rate: return "rad/s, deg/s";
+        case Dimension::angular_acceleration: return "rad/s^2, deg/s^2";
+        case Dimension::angular_jerk: return "rad/s^3, deg/s^3";
         case Dimension::ratio: return "%";
     }
     return "";

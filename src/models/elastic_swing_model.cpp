@@ -113,6 +113,12 @@ public:
             "sling legs swinging apart.",
             "The drive follows the planned support motion exactly, whatever the swing.",
         };
+        if (path_.slewing()) {
+            d.assumptions.push_back(
+                "Slewing: the suspension point turns about the vertical slew axis (carried by the travel, if "
+                "any) at the planned slew angle and radius exactly; jib and tower are rigid (no deflection, "
+                "no twist).");
+        }
         d.validity = ValidityRule::always_valid;
         return d;
     }
@@ -128,8 +134,15 @@ std::unique_ptr<SwingModel> make_elastic_swing_model(const Job& job) {
     auto channel = [](const std::vector<Move>& moves) {
         return moves.empty() ? SupportMotion::at_rest() : SupportMotion::from_moves(moves);
     };
-    SupportPath path(SupportMotion::from_spec(job.motion), channel(job.motion.y_moves),
-                     channel(job.motion.hoist_moves), job.hoist.rope_length);
+    SupportMotion x = SupportMotion::from_spec(job.motion), y = channel(job.motion.y_moves),
+                  hoist = channel(job.motion.hoist_moves);
+    if (const std::optional<SlewSpec>& slew = job.motion.slew) {
+        SupportPath path(std::move(x), std::move(y), std::move(hoist), job.hoist.rope_length,
+                         channel(slew->slew_moves), channel(slew->radius_moves),
+                         JibStart{slew->initial_radius, slew->initial_angle});
+        return std::make_unique<ElasticSwingModel>(parameters_from_job(job), std::move(path));
+    }
+    SupportPath path(std::move(x), std::move(y), std::move(hoist), job.hoist.rope_length);
     return std::make_unique<ElasticSwingModel>(parameters_from_job(job), std::move(path));
 }
 

@@ -205,8 +205,15 @@ SupportMotion SupportMotion::at_rest() { return from_moves({}); }
 
 SupportPath::SupportPath(SupportMotion x_travel, SupportMotion y_travel, SupportMotion hoist,
                          double initial_rope_length)
-    : channels_{std::move(x_travel), std::move(y_travel), std::move(hoist)},
-      initial_rope_length_(initial_rope_length) {
+    : SupportPath(std::move(x_travel), std::move(y_travel), std::move(hoist), initial_rope_length,
+                  SupportMotion::at_rest(), SupportMotion::at_rest(), JibStart{}) {
+    slewing_ = false;
+}
+
+SupportPath::SupportPath(SupportMotion x_travel, SupportMotion y_travel, SupportMotion hoist,
+                         double initial_rope_length, SupportMotion slew, SupportMotion radius, JibStart jib)
+    : channels_{std::move(x_travel), std::move(y_travel), std::move(hoist), std::move(slew), std::move(radius)},
+      initial_rope_length_(initial_rope_length), slewing_(true), jib_(jib) {
     for (const SupportMotion& c : channels_) {
         for (const MotionPiece& p : c.pieces()) breaks_.push_back(p.start);
     }
@@ -235,6 +242,18 @@ SupportKinematics SupportPath::at(double t, std::size_t interval) const {
     k.rope_length = initial_rope_length_ + sh.position;
     k.rope_speed = sh.speed;
     k.rope_acceleration = sh.acceleration;
+    if (slewing_) {
+        // Polar kinematics of the point on the jib (motion.hpp), from the exact
+        // piece states of the slew and radius channels: no differencing.
+        const SupportState s = state(slew, t, interval), r = state(radius, t, interval);
+        const double phi = jib_.angle + s.position, rho = jib_.radius + r.position;
+        const Eigen::Vector3d e_r(std::cos(phi), std::sin(phi), 0), e_t(-std::sin(phi), std::cos(phi), 0);
+        const double w = s.speed;
+        k.position += rho * e_r;
+        k.velocity += r.speed * e_r + rho * w * e_t;
+        k.acceleration += (r.acceleration - rho * w * w) * e_r + (2 * r.speed * w + rho * s.acceleration) * e_t;
+        k.slew_angle = phi;
+    }
     return k;
 }
 

@@ -10,7 +10,7 @@ namespace plumb {
 std::string format_csv(const LiftAssessment& a, UnitSystem u) {
     std::string out = "time [" + json_unit(Dimension::time, u) + "]";
     for (const QuantitySpec& q : quantity_table()) {
-        if (!has_record(q, Record::series)) continue;
+        if (!has_record(q, Record::series) || !reported_for(q, a.job.motion)) continue;
         out += ',';
         out += q.key;
         out += " [";
@@ -22,7 +22,7 @@ std::string format_csv(const LiftAssessment& a, UnitSystem u) {
     for (const Observation& o : a.prediction.simulation.trace) {
         out += text::printf_string("%.9g", shown_value(o.time, Dimension::time, u));
         for (const QuantitySpec& q : quantity_table()) {
-            if (!has_record(q, Record::series)) continue;
+            if (!has_record(q, Record::series) || !reported_for(q, a.job.motion)) continue;
             out += ',';
             out += text::printf_string("%.9g", shown_value(series_value(o, q.id, scales), q.dimension, u));
         }

@@ -41,6 +41,7 @@ table.data caption { caption-side: top; text-align: left; font-weight: bold; pad
 table.data th { text-align: left; border-bottom: 1.5px solid var(--ink); padding: 1mm 1.5mm; vertical-align: bottom; }
 table.data td { border-bottom: 1px solid #d0d0d0; padding: 1mm 1.5mm; vertical-align: top; }
 table.data .num { text-align: right; font-variant-numeric: tabular-nums; white-space: nowrap; }
+table.data th.num { white-space: normal; }
 table.data tr.fail td { background: #f7dede; font-weight: bold; }
 table.data tr.caution td { background: #fbefd5; }
 table.data tr.not-checked td { background: #e9e9e9; font-style: italic; }
@@ -126,6 +127,7 @@ HtmlDocument::HtmlDocument(std::string_view document_title, PaperSize paper)
 void HtmlDocument::title_block(const ReportTitleBlock& t) {
     body_ += element("h1", t.job_title.empty() ? title_ : t.job_title) + "\n";
     body_ += "<table class=\"title-block\">\n";
+    if (!t.made_by.empty()) body_ += title_row("Report", t.made_by);
     body_ += title_row("Job reference", t.reference);
     body_ += title_row("Date of this report", t.date);
     body_ += title_row("plumb version", t.plumb_version);

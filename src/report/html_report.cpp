@@ -9,6 +9,7 @@
 #include <optional>
 
 #include "plumb/html_document.hpp"
+#include "plumb/report_parts.hpp"
 #include "plumb/model.hpp"
 #include "plumb/report_facts.hpp"
 #include "plumb/sha256.hpp"
@@ -24,9 +25,6 @@ using text::seconds;
 
 namespace {
 
-// Columns a time plot is thinned to: about one point per drawn pixel column
-// (peaks survive, downsample_keep_extremes keeps each column's extremes).
-constexpr std::size_t plot_columns = 700;
 // Points a path is thinned to (evenly), so the file stays small; few enough
 // that the time-plot writer does not thin it again by columns (a path's x
 // is not ascending).
@@ -44,44 +42,12 @@ std::string utc_now() {
     return text;
 }
 
-// ---- Time series for the plots ---------------------------------------------
-
-std::vector<double> times_of(const std::vector<Observation>& trace) {
-    std::vector<double> t;
-    t.reserve(trace.size());
-    for (const Observation& o : trace) t.push_back(o.time);
-    return t;
-}
-
-// A quantity of the table over the trace, in the output's units, thinned for drawing.
-PlotSeries quantity_series(const LiftAssessment& a, const std::vector<Observation>& trace, Quantity q,
-                           std::string label, UnitSystem u) {
-    const LiftScales scales = a.prediction.scales();
-    const Dimension d = quantity_spec(q).dimension;
-    std::vector<double> t = times_of(trace), y;
-    y.reserve(trace.size());
-    for (const Observation& o : trace) y.push_back(shown_value(series_value(o, q, scales), d, u));
-    PlotSeries s{std::move(label), {}, {}};
-    if (t.empty()) return s;
-    for (std::size_t i : downsample_keep_extremes(t, y, t.front(), t.back(), plot_columns)) {
-        s.x.push_back(t[i]);
-        s.y.push_back(y[i]);
-    }
-    return s;
-}
-
-std::string unit_of(Dimension d, UnitSystem u) { return std::string(unit_symbol(d, u)); }
-
-LimitLine limit_line(double si, Dimension d, UnitSystem u, const std::string& words) {
-    return {shown_value(si, d, u), words + " " + qty(si, d, u)};
-}
-
 // Swing angles with the limit lines, the support speed below on the same time axis.
 std::string swing_plot(const LiftAssessment& a, const std::vector<Observation>& trace, UnitSystem u) {
     const Limits& l = a.job.limits;
     PlotPanel angles{"swing angle", unit_of(Dimension::angle, u),
-                     {quantity_series(a, trace, Quantity::hook_rope_angle, "hook rope angle", u),
-                      quantity_series(a, trace, Quantity::load_angle, "load angle (rigging)", u)},
+                     {quantity_series(a.prediction, trace, Quantity::hook_rope_angle, "hook rope angle", u),
+                      quantity_series(a.prediction, trace, Quantity::load_angle, "load angle (rigging)", u)},
                      {}};
     // Both angles at one limit: one pair of lines for both.
     const bool shared = l.hook_rope_angle && l.load_angle && *l.hook_rope_angle == *l.load_angle;
@@ -95,7 +61,7 @@ std::string swing_plot(const LiftAssessment& a, const std::vector<Observation>& 
         angles.limits.push_back({shown_value(-*limit, d, u), std::string(words) + " " + qty(-*limit, d, u)});
     }
     PlotPanel speed{"support speed", unit_of(Dimension::speed, u),
-                    {quantity_series(a, trace, Quantity::support_speed, "support speed", u)}, {}};
+                    {quantity_series(a.prediction, trace, Quantity::support_speed, "support speed", u)}, {}};
     speed.height = 110.0;
     TimePlot plot;
     plot.title = "Swing angles and support speed";
@@ -109,7 +75,7 @@ std::string tension_plot(const LiftAssessment& a, const std::vector<Observation>
     const StaticLoads& at_rest = a.prediction.model.static_loads;
     const Dimension f = Dimension::force;
     PlotPanel rope{"hoist rope tension", unit_of(f, u),
-                   {quantity_series(a, trace, Quantity::hoist_rope_tension, "hoist rope, all parts of line", u)},
+                   {quantity_series(a.prediction, trace, Quantity::hoist_rope_tension, "hoist rope, all parts of line", u)},
                    {limit_line(job.hoist.rated_load, f, u, "rated load"),
                     limit_line(at_rest.hoist_rope_tension, f, u, "static")}};
     if (job.hoist.rope_wll) {
@@ -118,7 +84,7 @@ std::string tension_plot(const LiftAssessment& a, const std::vector<Observation>
     }
     rope.limits_legend = "WLL / static weight";
     PlotPanel sling{"sling leg tension", unit_of(f, u),
-                    {quantity_series(a, trace, Quantity::sling_leg_tension, "one sling leg", u)}, {}};
+                    {quantity_series(a.prediction, trace, Quantity::sling_leg_tension, "one sling leg", u)}, {}};
     if (const auto leg_at_rest = a.prediction.static_value(Quantity::sling_leg_tension)) {
         sling.limits.push_back(limit_line(*leg_at_rest, f, u, "static"));
     }
@@ -189,46 +155,6 @@ std::string plan_path_plot(const std::vector<Observation>& trace, UnitSystem u) 
 
 // ---- Tables ---------------------------------------------------------------
 
-// The row's shading class from the verdict's word ("NOT CHECKED" -> "not-checked"),
-// so that every verdict the checks can give has its class.
-std::string verdict_mark(Verdict v) {
-    std::string mark = verdict_word(v);
-    for (char& c : mark) c = c == ' ' ? '-' : static_cast<char>(std::tolower(static_cast<unsigned char>(c)));
-    return mark;
-}
-
-std::string when(double t, const LiftPrediction& p) {
-    const std::optional<double> valid_until = p.valid_until();
-    return seconds(t) + (valid_until && t > *valid_until ? " (past the model's validity)" : "");
-}
-
-std::string utilisation(const CheckResult& c) {
-    return c.limit != 0 && std::isfinite(c.value / c.limit) ? percent(c.value / c.limit) : "-";
-}
-
-ReportTable checks_table(const LiftAssessment& a, UnitSystem u) {
-    ReportTable t;
-    t.caption = "Checks against the job's limits";
-    t.columns = {{"check"},
-                 {"value", ColumnAlign::right},
-                 {"limit", ColumnAlign::right},
-                 {"utilisation", ColumnAlign::right},
-                 {"value at", ColumnAlign::right},
-                 {"first exceeded", ColumnAlign::right},
-                 {"result"}};
-    for (const CheckResult& c : a.checks) {
-        if (c.verdict == Verdict::not_checked) {  // nothing was computed against a limit
-            t.add_row({c.name, "-", "-", "-", "-", "-", verdict_word(c.verdict)}, verdict_mark(c.verdict));
-            continue;
-        }
-        t.add_row({c.name, qty(c.value, c.dimension, u), qty(c.limit, c.dimension, u), utilisation(c),
-                   "t = " + when(c.value_time, a.prediction),
-                   c.first_exceedance ? "t = " + seconds(*c.first_exceedance) : "never", verdict_word(c.verdict)},
-                  verdict_mark(c.verdict));
-    }
-    return t;
-}
-
 ReportTable modes_table(const SwingModes& modes) {
     ReportTable t;
     t.caption = "Natural swing modes (small swings)";
@@ -248,117 +174,13 @@ ReportTable peaks_table(const LiftAssessment& a, UnitSystem u) {
     t.caption = "Peaks over the whole simulation (t = 0 to " + seconds(p.end_time) + ")";
     t.columns = {{"quantity"}, {"peak", ColumnAlign::right}, {"at", ColumnAlign::right}, {"static", ColumnAlign::right}};
     for (const QuantitySpec& q : quantity_table()) {
-        if (!has_record(q, Record::peak)) continue;
+        if (!has_record(q, Record::peak) || !reported_for(q, a.job.motion)) continue;
         const Peak peak = p.peak(q.id);
         const std::optional<double> at_rest = p.static_value(q.id);
-        t.add_row({q.words, qty(peak.value, q.dimension, u), "t = " + when(peak.time, p),
+        t.add_row({q.words, qty(peak.value, q.dimension, u), "t = " + time_within_validity(peak.time, p.valid_until()),
                    at_rest ? qty(*at_rest, q.dimension, u) : "-"});
     }
     return t;
-}
-
-// Lines of the job file on which a section's keys were given.
-std::string where_given(const Job& job, const std::string& section) {
-    int first = 0, last = 0;
-    for (const auto& [key, at] : job.key_locations) {
-        if (key != section && key.rfind(section + ".", 0) != 0) continue;
-        if (at.line <= 0) continue;
-        first = first == 0 ? at.line : std::min(first, at.line);
-        last = std::max(last, at.line);
-    }
-    if (first == 0) return job.key_locations.empty() ? "-" : "defaults only";
-    return first == last ? "line " + std::to_string(first) : "lines " + std::to_string(first) + " to " + std::to_string(last);
-}
-
-std::string source_of(const Job& job, const std::string& key) {
-    if (job.key_locations.empty()) return "-";
-    const auto at = job.key_locations.find(key);
-    if (at == job.key_locations.end()) return "default (not in the job file)";
-    return at->second.line > 0 ? "line " + std::to_string(at->second.line) : "job file";
-}
-
-ReportTable inputs_table(const LiftAssessment& a, UnitSystem u) {
-    const Job& job = a.job;
-    ReportTable t;
-    t.caption = "Inputs as plumb read them";
-    t.columns = {{"input"}, {"value"}, {"in the job file"}};
-    for (const InputFact& f : input_facts(a, u)) t.add_row({f.label, f.text, where_given(job, f.section)});
-    return t;
-}
-
-ReportTable limits_table(const LiftAssessment& a, UnitSystem u) {
-    const Job& job = a.job;
-    ReportTable t;
-    t.caption = "Limits";
-    t.columns = {{"limit"}, {"value", ColumnAlign::right}, {"in the job file"}};
-    for (const LimitRow& row : limit_rows()) {
-        const std::optional<double>& value = job.limits.*(row.member);
-        // The row's own line where the file's key has the row's name, else the section's lines.
-        const std::string key = std::string("limits.") + row.key;
-        if (value) t.add_row({row.words, qty(*value, row.dimension, u),
-                              job.key_locations.count(key) ? source_of(job, key) : where_given(job, "limits")});
-        else t.add_row({row.words, "none given", "NOT CHECKED"}, "not-checked");
-    }
-    t.add_row({"CAUTION above this share of a limit", percent(job.limits.caution_fraction),
-               source_of(job, "limits.caution_at")});
-    return t;
-}
-
-// Settings that have a default, with the value that applied.
-ReportTable analysis_table(const LiftAssessment& a, UnitSystem u) {
-    const Job& job = a.job;
-    const AnalysisSettings& an = job.analysis;
-    ReportTable t;
-    t.caption = "Analysis settings (defaults applied where the job file is silent)";
-    t.columns = {{"setting"}, {"value", ColumnAlign::right}, {"source"}};
-    const double after = a.prediction.end_time - a.prediction.end_of_motion;
-    if (a.prediction.comes_to_rest) {
-        t.add_row({"free swing after the last move", seconds(after) + (an.duration_after ? "" : " (automatic)"),
-                   source_of(job, "analysis.duration_after")});
-    } else {
-        t.add_row({"simulated time (held acceleration, never at rest)", seconds(a.prediction.end_time),
-                   source_of(job, "motion.held_acceleration.duration")});
-    }
-    t.add_row({"output step of the time series", seconds(an.output_step), source_of(job, "analysis.output_step")});
-    t.add_row({"integrator", integrator_name(an.integrator), source_of(job, "analysis.integrator")});
-    t.add_row({"relative tolerance", num(an.relative_tolerance), source_of(job, "analysis.relative_tolerance")});
-    t.add_row({"absolute tolerance", num(an.absolute_tolerance), source_of(job, "analysis.absolute_tolerance")});
-    t.add_row({"gravity", qty(job.environment.gravity, Dimension::acceleration, u),
-               source_of(job, "environment.gravity")});
-    return t;
-}
-
-// ---- The verdict ------------------------------------------------------------
-
-VerdictBanner banner(const LiftAssessment& a, UnitSystem u) {
-    VerdictBanner v;
-    v.verdict = a.overall;
-    std::vector<std::string> missing;  // the checks not made, with their reasons
-    for (const CheckResult& c : a.checks) {
-        if (c.verdict != Verdict::not_checked) continue;
-        std::string words = c.name;  // the check's key in words: "swing dynamic factor"
-        std::replace(words.begin(), words.end(), '_', ' ');
-        missing.push_back(words + " (" + c.note + ")");
-    }
-    v.not_checked = static_cast<int>(missing.size());
-    v.summary = std::string(verdict_word(a.overall)) + ": " + verdict_explanation(a);
-    if (!missing.empty()) v.summary += " Not checked: " + text::join(missing, "; ") + ".";
-    for (const CheckResult& c : a.checks) {
-        if (a.overall != Verdict::pass && c.verdict == a.overall) {
-            v.driven_by.push_back(c.name + " (" + qty(c.value, c.dimension, u) + ", " + utilisation(c) +
-                                  " of its limit)");
-        }
-    }
-    const CheckResult* closest = nullptr;  // among the checks made
-    for (const CheckResult& c : a.checks) {
-        if (c.verdict != Verdict::not_checked && (!closest || c.utilisation > closest->utilisation)) closest = &c;
-    }
-    if (a.overall == Verdict::pass && closest) {
-        v.driven_by.push_back("every check made; closest to its limit: " + closest->name + " (" +
-                              utilisation(*closest) + " of its limit)");
-    }
-    if (a.checks.empty()) v.summary += " No checks were run: the job gives no limits.";
-    return v;
 }
 
 }  // namespace
@@ -392,24 +214,13 @@ std::string format_html_report(const LiftAssessment& a, const std::vector<Observ
                                const ReportProvenance& provenance, UnitSystem units) {
     const Job& job = a.job;
     const LiftPrediction& p = a.prediction;
-    HtmlDocument doc("Lift plan attachment: " + (job.title.empty() ? std::string("(no title)") : job.title));
-    doc.title_block({job.title, job.reference.empty() ? "(none)" : job.reference, provenance.date,
-                     provenance.plumb_version, job.source_file.empty() ? "(not from a file)" : job.source_file,
-                     provenance.job_file_sha256});
-    if (!provenance.speed_history_sha256.empty()) {
-        doc.paragraph("SHA-256 of the speed history " + job.motion.speed_history_file + ": " +
-                      provenance.speed_history_sha256);
-    }
-    doc.verdict_banner(banner(a, units));
+    HtmlDocument doc = open_report("Lift plan attachment", "plumb check", job, provenance);
+    doc.verdict_banner(assessment_banner(a, units));
     for (const std::string& s : slack_statements(p)) doc.paragraph("SLACK: " + s);
 
     doc.begin_section("Checks");
-    doc.table(checks_table(a, units));
-    for (const CheckResult& c : a.checks) {
-        doc.paragraph(c.name + ": " + c.description + (c.note.empty() ? "." : ". " + c.note));
-    }
-    doc.paragraph("Utilisation: the value as a share of its limit; a value above " +
-                  percent(job.limits.caution_fraction) + " of its limit is a CAUTION, above 100 % a FAIL.");
+    doc.table(checks_table(a.checks, "Checks against the job's limits", p.valid_until(), units));
+    check_explanations(doc, a.checks, job.limits.caution_fraction);
     if (const std::optional<double> valid_until = p.valid_until()) {
         doc.paragraph("The " + p.model.name + " is not valid past t = " + seconds(*valid_until) +
                       ": values after that time are not predictions.");
@@ -420,14 +231,7 @@ std::string format_html_report(const LiftAssessment& a, const std::vector<Observ
     if (p.model.modes) doc.table(modes_table(*p.model.modes));
     else doc.paragraph("The " + p.model.name + " has no natural swing modes to show.");
 
-    doc.begin_section("Inputs");
-    doc.table(inputs_table(a, units));
-    doc.table(limits_table(a, units));
-    doc.table(analysis_table(a, units));
-    if (!a.notices.empty()) {
-        doc.paragraph("Notices about the input:");
-        for (const std::string& n : a.notices) doc.paragraph(n);
-    }
+    inputs_section(doc, a, units);
 
     doc.begin_section("Plots", SectionStart::new_page);
     if (trace.size() < 2) {
@@ -444,13 +248,8 @@ std::string format_html_report(const LiftAssessment& a, const std::vector<Observ
         }
     }
 
-    doc.begin_section("Model, assumptions and cautions", SectionStart::new_page);
-    doc.paragraph("Model: " + p.model.name + ". Integrator " + integrator_name(job.analysis.integrator) + ", " +
-                  std::to_string(p.simulation.stats.steps) + " steps.");
-    doc.cautions_and_assumptions(lift_cautions(), p.model.assumptions);
-
-    doc.begin_section("Review");
-    doc.reviewer_sign_off();
+    model_section(doc, model_line(a), p.model.assumptions);
+    review_section(doc);
     return doc.finish();
 }
 

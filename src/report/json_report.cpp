@@ -44,10 +44,11 @@ json job_json(const LiftAssessment& a, UnitSystem u) {
     const Job& job = a.job;
     const MotionDigest m = digest_motion(job.motion);
     json motion = {
-        {"kind", job.motion.fixed_support       ? "fixed_support"
-                 : job.motion.held_acceleration ? "held_acceleration"
-                 : m.from_history               ? "speed_history"
-                                                : "moves"},
+        {"kind", job.motion.fixed_support         ? "fixed_support"
+                 : job.motion.held_acceleration   ? "held_acceleration"
+                 : m.from_history                 ? "speed_history"
+                 : m.count == 0 && job.motion.slew ? "slew"
+                                                   : "moves"},
         {m.from_history ? "speed_history_rows" : "moves", m.count},
         {"total_travel", quantity_json(m.total_travel, Dimension::length, u)},
         {"end_position", quantity_json(m.net_travel, Dimension::length, u)},
@@ -60,6 +61,18 @@ json job_json(const LiftAssessment& a, UnitSystem u) {
         motion["held_acceleration"] = quantity_json(job.motion.held_acceleration->acceleration, Dimension::acceleration, u);
     }
     if (m.from_history) motion["speed_history_file"] = job.motion.speed_history_file;
+    if (job.motion.slew) {
+        const SlewDigest sd = digest_slew(*job.motion.slew);
+        motion["slew"] = {
+            {"slew_moves", sd.slew_moves},
+            {"radius_moves", sd.radius_moves},
+            {"initial_angle", quantity_json(sd.initial_angle, Dimension::angle, u)},
+            {"end_angle", quantity_json(sd.end_angle, Dimension::angle, u)},
+            {"peak_slew_rate", quantity_json(sd.peak_slew_rate, Dimension::angular_rate, u)},
+            {"initial_radius", quantity_json(sd.initial_radius, Dimension::length, u)},
+            {"end_radius", quantity_json(sd.end_radius, Dimension::length, u)},
+        };
+    }
     return {
         {"title", job.title},
         {"reference", job.reference},
@@ -132,7 +145,7 @@ std::string format_json(const LiftAssessment& a, UnitSystem u) {
 
     json peaks = json::object();
     for (const QuantitySpec& q : quantity_table()) {
-        if (!has_record(q, Record::peak)) continue;
+        if (!has_record(q, Record::peak) || !reported_for(q, a.job.motion)) continue;
         peaks[q.key] = peak_json(p.peak(q.id), q.dimension, u);
         if (has_record(q, Record::least)) {
             peaks[std::string("least_") + q.key] = peak_json(s.least[q.id], q.dimension, u);

@@ -30,6 +30,8 @@ constexpr UnitRow unit_table[] = {
     {Dimension::jerk, "m/s^3", 1.0, "ft/s^3", foot},
     {Dimension::angle, "deg", degree, "deg", degree},
     {Dimension::angular_rate, "deg/s", degree, "deg/s", degree},
+    {Dimension::angular_acceleration, "deg/s^2", degree, "deg/s^2", degree},
+    {Dimension::angular_jerk, "deg/s^3", degree, "deg/s^3", degree},
     {Dimension::ratio, "", 1.0, "", 1.0},
 };
 

@@ -73,7 +73,7 @@ std::string slack_statement(const LiftPrediction& p, const char* what, double t)
 
 MotionDigest digest_motion(const SupportMotionSpec& spec) {
     MotionDigest d;
-    d.from_history = spec.moves.empty() && !spec.fixed_support && !spec.held_acceleration;
+    d.from_history = !spec.speed_history.empty();
     if (d.from_history) {
         d.count = spec.speed_history.size();
         for (std::size_t i = 1; i < spec.speed_history.size(); ++i) {
@@ -90,6 +90,19 @@ MotionDigest digest_motion(const SupportMotionSpec& spec) {
     d.net_travel = motion.final_position();
     d.peak_speed = motion.peak_speed();
     d.peak_acceleration = motion.peak_acceleration();
+    return d;
+}
+
+SlewDigest digest_slew(const SlewSpec& slew) {
+    SlewDigest d;
+    d.slew_moves = slew.slew_moves.size();
+    d.radius_moves = slew.radius_moves.size();
+    d.initial_angle = slew.initial_angle;
+    d.initial_radius = slew.initial_radius;
+    const SupportMotion turns = SupportMotion::from_moves(slew.slew_moves);
+    d.end_angle = slew.initial_angle + turns.final_position();
+    d.peak_slew_rate = turns.peak_speed();
+    d.end_radius = slew.initial_radius + SupportMotion::from_moves(slew.radius_moves).final_position();
     return d;
 }
 
@@ -215,15 +228,27 @@ std::vector<InputFact> input_facts(const LiftAssessment& a, UnitSystem u) {
     } else if (m.from_history) {
         motion = "speed history of " + std::to_string(m.count) + " rows";
         if (!job.motion.speed_history_file.empty()) motion += " from " + job.motion.speed_history_file;
+    } else if (m.count == 0 && job.motion.slew) {
+        motion = "no travel of the slew axis";
     } else {
         motion = std::to_string(m.count) + (m.count == 1 ? " move" : " moves");
     }
-    motion += "; total travel " + qty(m.total_travel, Dimension::length, u) + ", end position " +
-              qty(m.net_travel, Dimension::length, u) + "; peak speed " +
-              qty(m.peak_speed, Dimension::speed, u) + "; peak acceleration " +
-              qty(m.peak_acceleration, Dimension::acceleration, u) +
-              (a.prediction.comes_to_rest ? "; support at rest for good from t = " + seconds(a.prediction.end_of_motion)
-                                          : std::string("; the support never comes to rest"));
+    if (m.count > 0 || m.from_history || !job.motion.slew) {
+        motion += "; total travel " + qty(m.total_travel, Dimension::length, u) + ", end position " +
+                  qty(m.net_travel, Dimension::length, u) + "; peak speed " + qty(m.peak_speed, Dimension::speed, u) +
+                  "; peak acceleration " + qty(m.peak_acceleration, Dimension::acceleration, u);
+    }
+    motion += a.prediction.comes_to_rest ? "; support at rest for good from t = " + seconds(a.prediction.end_of_motion)
+                                         : std::string("; the support never comes to rest");
+    if (job.motion.slew) {
+        const SlewDigest sd = digest_slew(*job.motion.slew);
+        motion += "; slewing about a vertical axis through the travel position: jib from " +
+                  qty(sd.initial_angle, Dimension::angle, u) + " to " + qty(sd.end_angle, Dimension::angle, u) +
+                  " in " + std::to_string(sd.slew_moves) + (sd.slew_moves == 1 ? " slew move" : " slew moves") +
+                  ", peak slew rate " + qty(sd.peak_slew_rate, Dimension::angular_rate, u) + "; radius from " +
+                  qty(sd.initial_radius, Dimension::length, u) + " to " + qty(sd.end_radius, Dimension::length, u) +
+                  " in " + std::to_string(sd.radius_moves) + (sd.radius_moves == 1 ? " radius move" : " radius moves");
+    }
     out.push_back({"Motion", motion, "motion"});
 
     std::string hoist = "rope length " + qty(job.hoist.rope_length, Dimension::length, u) + "; " +

@@ -122,7 +122,7 @@ std::string peaks_section(const LiftAssessment& a, UnitSystem u) {
     const SimulationResult& s = p.simulation;
     TextTable t({"quantity", "peak", "at t", "static", "least"}, "lrrrr");
     for (const QuantitySpec& q : quantity_table()) {
-        if (!has_record(q, Record::peak)) continue;
+        if (!has_record(q, Record::peak) || !reported_for(q, a.job.motion)) continue;
         const Peak peak = p.peak(q.id);
         const std::optional<double> at_rest = p.static_value(q.id);
         std::string least;

@@ -222,12 +222,15 @@ std::vector<std::size_t> downsample_keep_extremes(const std::vector<double>& x, 
 const LineLook& series_look(std::size_t index) {
     // Dash and width tell the series apart in grey print; the colours (dark,
     // of different lightness) help on screen.
-    static const std::array<LineLook, 5> looks = {{
+    static const std::array<LineLook, 8> looks = {{
         {"#1b3a6b", 2.0, ""},
         {"#b2551b", 1.6, "7 3"},
         {"#2f6b2f", 2.2, "1.5 2.5"},
         {"#6b2f6b", 1.4, "10 2 2 2 2 2"},  // dash-dot-dot: apart from the limits' dash-dot
         {"#555555", 0.9, ""},
+        {"#00707a", 2.6, "14 4"},
+        {"#7a5a00", 1.2, "3 3"},
+        {"#222222", 1.8, "6 2 1 2 1 2"},
     }};
     return looks[index % looks.size()];
 }
@@ -347,11 +350,19 @@ void draw_limit_lines(SvgWriter& svg, const Frame& f, const std::vector<LimitLin
 void draw_limit_labels(SvgWriter& svg, const Frame& f, const std::vector<LimitLine>& limits) {
     SvgTextStyle label{10.0, TextAnchor::end, false, "#8b0000", 0.0, "limit-label", "#fff"};
     svg.begin_group("limit-labels");
+    std::vector<double> taken;  // baselines of the labels drawn so far
+    const auto clashes = [&](double baseline) {
+        return std::any_of(taken.begin(), taken.end(), [&](double b) { return std::fabs(b - baseline) < 11.0; });
+    };
     for (const LimitLine& l : limits) {
         if (!std::isfinite(l.value)) continue;
-        // Above the line, or below it where the frame's top is too close.
+        // Above the line, or below it where the frame's top is too close or
+        // another label sits there.
         const double y = f.py(l.value);
-        svg.text({f.right() - 4.0, y - f.top < 13.0 ? y + 11.0 : y - 3.0}, l.label, label);
+        const double above = y - 3.0, below = y + 11.0;
+        const double baseline = y - f.top < 13.0 || (clashes(above) && !clashes(below)) ? below : above;
+        taken.push_back(baseline);
+        svg.text({f.right() - 4.0, baseline}, l.label, label);
     }
     svg.end_group();
 }
@@ -372,12 +383,34 @@ void draw_marker(SvgWriter& svg, SvgPoint at, Marker m, SvgStyle style) {
     if (m == Marker::path_end) svg.rect(at.x - 3.5, at.y - 3.5, 7.0, 7.0, style);
 }
 
-// One row of entries: a short sample of the line (or the marker), then its label.
-void draw_legend(SvgWriter& svg, double left, double baseline, const std::vector<LegendEntry>& entries) {
+double legend_entry_width(const LegendEntry& e) { return 31.0 + 6.2 * static_cast<double>(e.label.size()) + 18.0; }
+
+// Rows of entries that fit between left and right (at least one entry a row).
+std::size_t legend_rows(const std::vector<LegendEntry>& entries, double left, double right) {
+    std::size_t rows = 1;
+    double x = left;
+    for (const LegendEntry& e : entries) {
+        if (x > left && x + legend_entry_width(e) - 18.0 > right) {
+            ++rows;
+            x = left;
+        }
+        x += legend_entry_width(e);
+    }
+    return rows;
+}
+
+// Rows of entries, each a short sample of the line (or the marker), then
+// its label; an entry that would pass `right` starts a new row below.
+void draw_legend(SvgWriter& svg, double left, double baseline, const std::vector<LegendEntry>& entries,
+                 double right = INFINITY) {
     svg.begin_group("legend");
     SvgTextStyle text{tick_font, TextAnchor::start, false, "#000", 0.0, "legend-label", ""};
     double x = left;
     for (const LegendEntry& e : entries) {
+        if (x > left && x + legend_entry_width(e) - 18.0 > right) {
+            x = left;
+            baseline += legend_height;
+        }
         if (e.marker == Marker::none) {
             SvgStyle sample = e.line;
             sample.css_class = "legend-line";
@@ -388,7 +421,7 @@ void draw_legend(SvgWriter& svg, double left, double baseline, const std::vector
             draw_marker(svg, {x + 13.0, baseline - 4.0}, e.marker, sample);
         }
         svg.text({x + 31.0, baseline}, e.label, text);
-        x += 31.0 + 6.2 * static_cast<double>(e.label.size()) + 18.0;
+        x += legend_entry_width(e);
     }
     svg.end_group();
 }
@@ -402,6 +435,19 @@ std::vector<LegendEntry> panel_legend(const PlotPanel& p) {
     return entries;
 }
 
+const SvgStyle mark_style{"#333", 1.2, "5 3", "none", "time-mark"};
+
+void draw_time_marks(SvgWriter& svg, const Frame& f, const std::vector<TimeMark>& marks, bool labelled) {
+    SvgTextStyle label{10.0, TextAnchor::start, false, "#222", 0.0, "time-mark-label", "#fff"};
+    for (const TimeMark& m : marks) {
+        if (!std::isfinite(m.at)) continue;
+        svg.begin_group("time-mark", m.label);
+        svg.line({f.px(m.at), f.top}, {f.px(m.at), f.bottom()}, mark_style);
+        if (labelled) svg.text({f.px(m.at) + 4.0, f.top + 12.0}, m.label, label);
+        svg.end_group();
+    }
+}
+
 void draw_title(SvgWriter& svg, double width, const std::string& title) {
     if (title.empty()) return;
     svg.text({width / 2.0, 20.0}, title, SvgTextStyle{14.0, TextAnchor::middle, true, "#000", 0.0, "plot-title", ""});
@@ -412,7 +458,11 @@ void draw_title(SvgWriter& svg, double width, const std::string& title) {
 std::string render_time_plot(const TimePlot& plot) {
     const auto panel_height = [&](const PlotPanel& p) { return p.height > 0.0 ? p.height : plot.panel_height; };
     double height = title_height + x_labels_height;
-    for (const PlotPanel& p : plot.panels) height += legend_height + panel_height(p) + panel_gap;
+    const double right = plot.width - margin_right;
+    const auto legend_block = [&](const PlotPanel& p) {
+        return legend_height * static_cast<double>(legend_rows(panel_legend(p), margin_left, right));
+    };
+    for (const PlotPanel& p : plot.panels) height += legend_block(p) + panel_height(p) + panel_gap;
     SvgWriter svg(plot.width, height, plot.title, "time plot with " + std::to_string(plot.panels.size()) + " panels");
     draw_title(svg, plot.width, plot.title);
 
@@ -422,6 +472,7 @@ std::string render_time_plot(const TimePlot& plot) {
             for (const double t : s.x) time.add(t);
         }
     }
+    for (const TimeMark& m : plot.marks) time.add(m.at);
     const AxisTicks x_ticks = time.ticks(10);
     const std::string x_label = axis_label(plot.x_quantity, plot.x_unit);
 
@@ -433,15 +484,16 @@ std::string render_time_plot(const TimePlot& plot) {
             for (const double v : s.y) values.add(v);
         }
         for (const LimitLine& l : p.limits) values.add(l.value);
-        const Frame f{margin_left, top + legend_height, plot.width - margin_left - margin_right, panel_height(p),
+        const Frame f{margin_left, top + legend_block(p), plot.width - margin_left - margin_right, panel_height(p),
                       x_ticks, values.ticks(5)};
         svg.begin_group("panel", axis_label(p.quantity, p.unit));
-        draw_legend(svg, f.left, top + 14.0, panel_legend(p));
+        draw_legend(svg, f.left, top + 14.0, panel_legend(p), right);
         draw_grid_and_frame(svg, f);
         draw_y_axis(svg, f, axis_label(p.quantity, p.unit));
         draw_limit_lines(svg, f, p.limits);
         for (std::size_t i = 0; i < p.series.size(); ++i) draw_series(svg, f, p.series[i], series_look(i), true);
         draw_limit_labels(svg, f, p.limits);
+        draw_time_marks(svg, f, plot.marks, k == 0);
         if (k + 1 == plot.panels.size()) draw_x_axis(svg, f, x_label);
         svg.end_group();
         top = f.bottom() + panel_gap;
@@ -533,6 +585,227 @@ std::string render_path_plot(const PathPlot& plot) {
     }
     draw_y_axis(svg, f, axis_label(plot.y_quantity, plot.unit));
     draw_x_axis(svg, f, axis_label(plot.x_quantity, plot.unit));
+    return svg.finish();
+}
+
+}  // namespace plumb
+
+// ---- Verdict map -------------------------------------------------------------
+
+namespace plumb {
+
+const char* cell_verdict_words(CellVerdict v) {
+    switch (v) {
+        case CellVerdict::pass: return "PASS";
+        case CellVerdict::caution: return "CAUTION";
+        case CellVerdict::fail: return "FAIL";
+        case CellVerdict::error: return "ERROR";
+        case CellVerdict::not_run: break;
+    }
+    return "not run";
+}
+
+namespace {
+
+struct Box {
+    double x0, y0, x1, y1;  // picture coordinates, y down
+};
+
+// Parallel lines at 45 degrees across a box, `gap` apart along x: rising
+// ("/") or falling ("\").
+void hatch(SvgWriter& svg, const Box& b, double gap, bool rising, const SvgStyle& style) {
+    const double c_low = rising ? b.x0 + b.y0 : b.x0 - b.y1;
+    const double c_high = rising ? b.x1 + b.y1 : b.x1 - b.y0;
+    for (double c = c_low + gap / 2.0; c < c_high; c += gap) {
+        const double lo = rising ? std::max(b.x0, c - b.y1) : std::max(b.x0, c + b.y0);
+        const double hi = rising ? std::min(b.x1, c - b.y0) : std::min(b.x1, c + b.y1);
+        if (hi - lo < 0.5) continue;
+        const auto y_at = [&](double x) { return rising ? c - x : x - c; };
+        svg.line({lo, y_at(lo)}, {hi, y_at(hi)}, style);
+    }
+}
+
+// A cell: fill, hatching and a symbol of its own per verdict (colour is never
+// the only carrier): PASS an open circle, CAUTION a triangle over sparse
+// hatching, FAIL a cross over cross-hatching, ERROR a bar on grey, not run a
+// dotted outline.
+void draw_cell(SvgWriter& svg, const Box& b, CellVerdict v) {
+    const double w = b.x1 - b.x0, h = b.y1 - b.y0;
+    const SvgPoint c{(b.x0 + b.x1) / 2.0, (b.y0 + b.y1) / 2.0};
+    const double r = std::max(2.0, 0.28 * std::min(w, h));
+    const auto background = [&](const char* fill, const char* stroke, const char* dash) {
+        svg.rect(b.x0, b.y0, w, h, SvgStyle{stroke, 0.6, dash, fill, "cell-fill"});
+    };
+    switch (v) {
+        case CellVerdict::pass:
+            background("#dcefd8", "#ffffff", "");
+            svg.circle(c, r, SvgStyle{"#1e5a1e", 1.6, "", "none", "cell-symbol"});
+            break;
+        case CellVerdict::caution:
+            background("#f8e2a8", "#ffffff", "");
+            hatch(svg, b, std::max(6.0, w / 5.0), true, SvgStyle{"#b07a10", 0.7, "", "none", "cell-hatch"});
+            svg.polyline({{c.x, c.y - r}, {c.x + r, c.y + 0.8 * r}, {c.x - r, c.y + 0.8 * r}, {c.x, c.y - r}},
+                         SvgStyle{"#5a3c00", 1.6, "", "#f8e2a8", "cell-symbol"});
+            break;
+        case CellVerdict::fail:
+            background("#e9a3a3", "#ffffff", "");
+            hatch(svg, b, std::max(4.0, w / 8.0), true, SvgStyle{"#7a1010", 0.7, "", "none", "cell-hatch"});
+            hatch(svg, b, std::max(4.0, w / 8.0), false, SvgStyle{"#7a1010", 0.7, "", "none", "cell-hatch"});
+            svg.rect(c.x - r, c.y - r, 2 * r, 2 * r, SvgStyle{"", 0.0, "", "#fff", "cell-symbol"});
+            svg.line({c.x - 0.8 * r, c.y - 0.8 * r}, {c.x + 0.8 * r, c.y + 0.8 * r}, SvgStyle{"#5a0000", 2.4, "", "none", "cell-symbol"});
+            svg.line({c.x - 0.8 * r, c.y + 0.8 * r}, {c.x + 0.8 * r, c.y - 0.8 * r}, SvgStyle{"#5a0000", 2.4, "", "none", "cell-symbol"});
+            break;
+        case CellVerdict::error:
+            background("#bdbdbd", "#ffffff", "");
+            svg.rect(c.x - r, c.y - 0.25 * r, 2 * r, 0.5 * r, SvgStyle{"#000", 1.0, "", "#000", "cell-symbol"});
+            break;
+        case CellVerdict::not_run:
+            background("#ffffff", "#777777", "2 2");
+            break;
+    }
+}
+
+// Ticks over a span that the frame fills exactly: nice values, only those within it.
+AxisTicks ticks_within(double low, double high, int target) {
+    AxisTicks t = loose_ticks(low, high, target);
+    std::vector<double> inside;
+    for (const double v : t.values) {
+        if (v >= low - 1e-9 * std::abs(high - low) && v <= high + 1e-9 * std::abs(high - low)) inside.push_back(v);
+    }
+    t.values = std::move(inside);
+    t.low = low;
+    t.high = high;
+    return t;
+}
+
+// The span of cells centred on equally spaced values.
+std::pair<double, double> cell_span(const std::vector<double>& values) {
+    const auto [lo, hi] = std::minmax_element(values.begin(), values.end());
+    double half = values.size() > 1 ? (*hi - *lo) / (2.0 * static_cast<double>(values.size() - 1)) : 0.0;
+    if (!(half > 0.0)) half = *lo != 0.0 ? 0.1 * std::abs(*lo) : 0.5;
+    return {*lo - half, *hi + half};
+}
+
+}  // namespace
+
+std::string render_verdict_map(const VerdictMap& map) {
+    const std::size_t rows = map.y_values.size(), columns = map.x_values.size();
+    if (rows == 0 || columns == 0 || map.cells.size() != rows) {
+        throw std::invalid_argument("a verdict map needs one row of cells per y value");
+    }
+    for (const auto& row : map.cells) {
+        if (row.size() != columns) throw std::invalid_argument("a verdict map row needs one cell per x value");
+    }
+    for (const double v : map.x_values) svg_number(v);  // throws for a non-finite value
+    for (const double v : map.y_values) svg_number(v);
+    const auto [x_low, x_high] = cell_span(map.x_values);
+    const auto [y_low, y_high] = cell_span(map.y_values);
+    const double plot_width = map.width - margin_left - margin_right;
+    const double plot_height = std::min(map.max_height, std::max(22.0 * static_cast<double>(rows),
+                                                                 plot_width * static_cast<double>(rows) /
+                                                                     static_cast<double>(columns)));
+    const Frame f{margin_left, title_height + legend_height, plot_width, plot_height, ticks_within(x_low, x_high, 8),
+                  ticks_within(y_low, y_high, 6)};
+    SvgWriter svg(map.width, f.bottom() + x_labels_height, map.title,
+                  "verdict map of " + std::to_string(rows * columns) + " cases");
+    draw_title(svg, map.width, map.title);
+
+    // The legend: a swatch of each cell kind with its word.
+    svg.begin_group("legend");
+    double x = f.left;
+    for (const CellVerdict v : {CellVerdict::pass, CellVerdict::caution, CellVerdict::fail, CellVerdict::error}) {
+        draw_cell(svg, {x, title_height + 2.0, x + 18.0, title_height + 16.0}, v);
+        const std::string words = cell_verdict_words(v);
+        svg.text({x + 23.0, title_height + 13.0}, v == CellVerdict::error ? "input or numerical error" : words,
+                 SvgTextStyle{tick_font, TextAnchor::start, false, "#000", 0.0, "legend-label", ""});
+        x += 23.0 + 6.2 * static_cast<double>(v == CellVerdict::error ? 24 : words.size()) + 22.0;
+    }
+    svg.end_group();
+
+    const double cell_w = f.width / static_cast<double>(columns), cell_h = f.height / static_cast<double>(rows);
+    svg.begin_group("cells");
+    for (std::size_t i = 0; i < rows; ++i) {
+        for (std::size_t j = 0; j < columns; ++j) {
+            const double cx = f.px(map.x_values[j]), cy = f.py(map.y_values[i]);
+            const CellVerdict v = map.cells[i][j];
+            svg.begin_group("cell", map.y_quantity + " " + svg_number(map.y_values[i], 6) + ", " + map.x_quantity + " " +
+                                        svg_number(map.x_values[j], 6) + ": " + cell_verdict_words(v));
+            draw_cell(svg, {cx - cell_w / 2.0, cy - cell_h / 2.0, cx + cell_w / 2.0, cy + cell_h / 2.0}, v);
+            svg.end_group();
+        }
+    }
+    svg.end_group();
+    svg.rect(f.left, f.top, f.width, f.height, frame_style);
+    draw_y_axis(svg, f, axis_label(map.y_quantity, map.y_unit));
+    draw_x_axis(svg, f, axis_label(map.x_quantity, map.x_unit));
+    return svg.finish();
+}
+
+// ---- Histogram -----------------------------------------------------------------
+
+HistogramBins histogram_bins(const std::vector<double>& values, const std::vector<double>& extra, int target_bins) {
+    Bounds range;
+    for (const double v : values) range.add(v);
+    for (const double v : extra) range.add(v);
+    const AxisTicks t = range.ticks(std::max(2, target_bins + 1));
+    HistogramBins b;
+    b.low = t.low;
+    b.width = t.step;
+    const auto count = static_cast<std::size_t>(std::max(1.0, std::round((t.high - t.low) / t.step)));
+    b.counts.assign(count, 0);
+    for (const double v : values) {
+        if (!std::isfinite(v)) continue;
+        const double k = std::floor((v - b.low) / b.width);
+        ++b.counts[static_cast<std::size_t>(std::clamp(k, 0.0, static_cast<double>(count - 1)))];
+    }
+    return b;
+}
+
+std::string render_histogram(const Histogram& h) {
+    std::vector<double> at;
+    for (const LimitLine& l : h.limits) at.push_back(l.value);
+    const HistogramBins bins = histogram_bins(h.values, at, h.target_bins);
+    const double high = bins.low + bins.width * static_cast<double>(bins.counts.size());
+    const std::size_t most = bins.counts.empty() ? 0 : *std::max_element(bins.counts.begin(), bins.counts.end());
+    const Frame f{margin_left, title_height + legend_height, h.width - margin_left - margin_right, h.height,
+                  ticks_within(bins.low, high, 8), loose_ticks(0.0, std::max<double>(static_cast<double>(most), 5.0), 5)};
+    SvgWriter svg(h.width, f.bottom() + x_labels_height, h.title,
+                  "histogram of " + std::to_string(h.values.size()) + " values in " +
+                      std::to_string(bins.counts.size()) + " bins");
+    draw_title(svg, h.width, h.title);
+    const SvgStyle bar{"#1b3a6b", 0.8, "", "#c6d2e6", "bar"};
+    std::vector<LegendEntry> legend{{"samples per bin", bar}};
+    if (!h.limits.empty()) legend.push_back({"limit", limit_style});
+    draw_legend(svg, f.left, title_height + 14.0, legend);
+    draw_grid_and_frame(svg, f);
+    for (std::size_t k = 0; k < bins.counts.size(); ++k) {
+        const double from = bins.low + bins.width * static_cast<double>(k);
+        svg.begin_group("bin", std::to_string(bins.counts[k]) + " samples from " + svg_number(from, 6) + " to " +
+                                   svg_number(from + bins.width, 6) + " " + h.unit);
+        if (bins.counts[k] > 0) {
+            const double top = f.py(static_cast<double>(bins.counts[k]));
+            svg.rect(f.px(from), top, f.px(from + bins.width) - f.px(from), f.bottom() - top, bar);
+        }
+        svg.end_group();
+    }
+    // Each label one line lower than the one before, so that labels of
+    // nearby lines do not overlap; left of its line, or right of it near
+    // the frame's left side.
+    double baseline = f.top + 12.0;
+    for (const LimitLine& l : h.limits) {
+        if (!std::isfinite(l.value)) continue;
+        const double x = f.px(l.value);
+        const bool room_left = x - f.left > 6.2 * static_cast<double>(l.label.size()) + 8.0;
+        const SvgTextStyle label{10.0, room_left ? TextAnchor::end : TextAnchor::start, false, "#8b0000", 0.0,
+                                 "limit-label", "#fff"};
+        svg.begin_group("limit", l.label);
+        svg.line({x, f.top}, {x, f.bottom()}, limit_style);
+        svg.text({room_left ? x - 4.0 : x + 4.0, baseline}, l.label, label);
+        svg.end_group();
+        baseline += 12.0;
+    }
+    draw_y_axis(svg, f, "samples");
+    draw_x_axis(svg, f, axis_label(h.quantity, h.unit));
     return svg.finish();
 }
 

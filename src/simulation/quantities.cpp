@@ -23,14 +23,34 @@ constexpr QuantitySpec simulated(Quantity id, const char* key, const char* words
                                  bool magnitude = false, StaticReference ref = StaticReference::none,
                                  bool static_in_json = false, int residual_rank = 0) {
     return {id, key, words, residual_words, d, records, read, magnitude, no_base, nullptr, ref, static_in_json,
-            residual_rank};
+            residual_rank, QuantityScope::every_lift};
+}
+
+// A member's lean from the vertical resolved on the jib of a slewing support:
+// its angle in the vertical plane through the jib (radial, positive outward,
+// away from the slew centre) or in the vertical plane across it (tangential,
+// positive toward increasing slew angle). Zero when the support does not slew.
+double jib_component(const Member& m, const SupportKinematics& s, bool tangential) {
+    if (!s.slew_angle) return 0;
+    const double c = std::cos(*s.slew_angle), sn = std::sin(*s.slew_angle);
+    const Eigen::Vector3d& v = m.vector();
+    const double along = tangential ? -sn * v.x() + c * v.y() : c * v.x() + sn * v.y();
+    return std::atan2(along, -v.z());
+}
+
+// An angle that only a slewing lift reports: a series (records series), or a
+// swing component with its peak magnitude too.
+constexpr QuantitySpec slewing_component(Quantity id, const char* key, const char* words,
+                                         double (*read)(const Observation&), unsigned records = series | peak) {
+    return {id, key, words, "", Dimension::angle, records, read, true, no_base, nullptr,
+            StaticReference::none, false, 0, QuantityScope::slewing};
 }
 
 // A quantity derived value by value from another.
 constexpr QuantitySpec derived(Quantity id, const char* key, const char* words, Dimension d, unsigned records,
                                Quantity base, double (*derive)(double, const LiftScales&), bool static_in_json) {
     return {id, key, words, "", d, records, nullptr, false, base, derive, StaticReference::none, static_in_json,
-            0};
+            0, QuantityScope::every_lift};
 }
 
 constexpr QuantitySpec table[] = {
@@ -40,6 +60,9 @@ constexpr QuantitySpec table[] = {
               [](const Observation& o) { return o.support.velocity.x(); }),
     simulated(Quantity::support_acceleration, "support_acceleration", "", "", Dimension::acceleration, series,
               [](const Observation& o) { return o.support.acceleration.x(); }),
+    // The jib's direction, to read the radial and tangential components against.
+    slewing_component(Quantity::slew_angle, "slew_angle", "",
+                      [](const Observation& o) { return o.support.slew_angle.value_or(0.0); }, series),
     simulated(Quantity::hook_rope_angle, "hook_rope_angle", "hook rope angle from vertical", "Hook rope angle",
               Dimension::angle, series | peak | residual | crossing,
               [](const Observation& o) { return rope(o).angle(); }, true, StaticReference::none, false, 1),
@@ -50,6 +73,17 @@ constexpr QuantitySpec table[] = {
               StaticReference::none, false, 2),
     simulated(Quantity::load_rate, "load_rate", "", "", Dimension::angular_rate, series,
               [](const Observation& o) { return rigging(o).angular_rate(); }),
+    slewing_component(Quantity::hook_rope_radial_angle, "hook_rope_radial_angle",
+                      "hook rope angle, radial (along the jib)",
+                      [](const Observation& o) { return jib_component(rope(o), o.support, false); }),
+    slewing_component(Quantity::hook_rope_tangential_angle, "hook_rope_tangential_angle",
+                      "hook rope angle, tangential (across the jib)",
+                      [](const Observation& o) { return jib_component(rope(o), o.support, true); }),
+    slewing_component(Quantity::load_radial_angle, "load_radial_angle", "load angle, radial (along the jib)",
+                      [](const Observation& o) { return jib_component(rigging(o), o.support, false); }),
+    slewing_component(Quantity::load_tangential_angle, "load_tangential_angle",
+                      "load angle, tangential (across the jib)",
+                      [](const Observation& o) { return jib_component(rigging(o), o.support, true); }),
     simulated(Quantity::hook_x, "hook_x", "", "", Dimension::length, series,
               [](const Observation& o) { return o.hook_block.x(); }),
     simulated(Quantity::hook_z, "hook_z", "", "", Dimension::length, series,
