@@ -3,8 +3,6 @@
 // are invented for these tests.
 #include <catch2/catch.hpp>
 
-#include <sys/wait.h>
-
 #include <algorithm>
 #include <cstdlib>
 #include <filesystem>
@@ -12,43 +10,16 @@
 
 #include <nlohmann/json.hpp>
 
-#include "scratch_folder.hpp"
+#include "plumb_cli.hpp"
 
 namespace {
 
-struct RunResult {
-    int status = -1;
-    std::string out;
-    std::string err;
-};
-
-std::string quoted(const std::string& s) {
-    std::string q = "'";
-    for (char c : s) {
-        if (c == '\'') q += "'\\''";
-        else q += c;
-    }
-    return q + "'";
-}
-
-// Run plumb with the arguments (already quoted where needed), capturing both streams.
-RunResult run_plumb(const std::string& arguments) {
-    plumb_test::ScratchFolder capture;
-    const std::string out = capture.file("stdout");
-    const std::string err = capture.file("stderr");
-    const std::string command = quoted(PLUMB_EXECUTABLE) + " " + arguments + " >" + quoted(out) +
-                                " 2>" + quoted(err) + " </dev/null";
-    const int raw = std::system(command.c_str());
-    RunResult r;
-    r.status = (raw != -1 && WIFEXITED(raw)) ? WEXITSTATUS(raw) : -1;
-    r.out = plumb_test::read_text(out);
-    r.err = plumb_test::read_text(err);
-    return r;
-}
-
-bool contains(const std::string& haystack, const std::string& needle) {
-    return haystack.find(needle) != std::string::npos;
-}
+using plumb_test::contains;
+using plumb_test::quoted;
+using plumb_test::run_plumb;
+using plumb_test::RunResult;
+using plumb_test::small_job;
+using plumb_test::write_job;
 
 std::size_t occurrences(const std::string& haystack, const std::string& needle) {
     std::size_t n = 0;
@@ -57,34 +28,6 @@ std::size_t occurrences(const std::string& haystack, const std::string& needle) 
         ++n;
     }
     return n;
-}
-
-// A short gentle trolley move of a 3 t load; invented numbers.
-const char* const gentle_job = R"(job:
-  title: CLI test lift
-  reference: CLI-1
-motion:
-  moves:
-    - distance: 5 m
-      top_speed: 0.5 m/s
-      acceleration: 0.3 m/s^2
-hoist:
-  rope_length: 10 m
-  parts_of_line: 1
-  rated_load: 10 t
-hook_block:
-  mass: 200 kg
-rigging:
-  length: 2 m
-load:
-  mass: 3 t
-)";
-
-std::string write_job(const plumb_test::ScratchFolder& folder, const std::string& name,
-                      const std::string& text) {
-    const std::string path = folder.file(name);
-    plumb_test::write_text(path, text);
-    return path;
 }
 
 }  // namespace
@@ -117,7 +60,7 @@ TEST_CASE("plumb --version exits 0 and names the program", "[cli]") {
 
 TEST_CASE("command-line mistakes exit 2 with one error line", "[cli]") {
     plumb_test::ScratchFolder folder;
-    const std::string job = quoted(write_job(folder, "job.yaml", gentle_job));
+    const std::string job = quoted(write_job(folder, "job.yaml", small_job));
     for (const std::string& arguments :
          {std::string(""), std::string("launch ") + job, "check " + job + " --bogus",
           "check " + job + " --units metric", std::string("check"), "modes " + job + " --json x.json",
@@ -131,7 +74,7 @@ TEST_CASE("command-line mistakes exit 2 with one error line", "[cli]") {
         CHECK(occurrences(r.err, "plumb: error:") == 1);
     }
     CHECK(folder.listing() == "job.yaml\n");
-    CHECK(plumb_test::read_text(folder.file("job.yaml")) == gentle_job);  // never overwritten
+    CHECK(plumb_test::read_text(folder.file("job.yaml")) == small_job);  // never overwritten
 }
 
 TEST_CASE("a missing job file exits 2 and names the file", "[cli]") {
@@ -157,7 +100,7 @@ TEST_CASE("a malformed job file exits 2 and names the file", "[cli]") {
 
 TEST_CASE("plumb check of a gentle lift prints the summary with cautions and exits 0", "[cli]") {
     plumb_test::ScratchFolder folder;
-    const std::string job = write_job(folder, "job.yaml", gentle_job);
+    const std::string job = write_job(folder, "job.yaml", small_job);
     const RunResult r = run_plumb("check " + quoted(job));
     INFO(r.err);
     CHECK(r.status == 0);
@@ -175,7 +118,7 @@ TEST_CASE("plumb check of a gentle lift prints the summary with cautions and exi
 
 TEST_CASE("plumb check with --json and --csv writes complete, parseable files", "[cli]") {
     plumb_test::ScratchFolder folder;
-    const std::string job = write_job(folder, "job.yaml", gentle_job);
+    const std::string job = write_job(folder, "job.yaml", small_job);
     const std::string json_path = folder.file("result.json");
     const std::string csv_path = folder.file("trace.csv");
     const RunResult r = run_plumb("check " + quoted(job) + " --json " + quoted(json_path) +
@@ -200,7 +143,7 @@ TEST_CASE("plumb check with --json and --csv writes complete, parseable files", 
 
 TEST_CASE("an output path that cannot be written exits 2 and leaves no file", "[cli]") {
     plumb_test::ScratchFolder folder;
-    const std::string job = write_job(folder, "job.yaml", gentle_job);
+    const std::string job = write_job(folder, "job.yaml", small_job);
     const std::string good = folder.file("result.json");
     const std::string bad = folder.file("missing-folder/trace.csv");
     const RunResult r = run_plumb("check " + quoted(job) + " --json " + quoted(good) + " --csv " +
@@ -215,7 +158,7 @@ TEST_CASE("an output path that cannot be written exits 2 and leaves no file", "[
 TEST_CASE("a lift that exceeds its limit exits 1 and says FAIL", "[cli]") {
     plumb_test::ScratchFolder folder;
     const std::string job =
-        write_job(folder, "tight.yaml", std::string(gentle_job) + "limits:\n  load_offset: 1 mm\n");
+        write_job(folder, "tight.yaml", std::string(small_job) + "limits:\n  load_offset: 1 mm\n");
     const std::string json_path = folder.file("tight.json");
     const RunResult r = run_plumb("check " + quoted(job) + " --json " + quoted(json_path));
     INFO(r.err);
@@ -229,7 +172,7 @@ TEST_CASE("a lift that exceeds its limit exits 1 and says FAIL", "[cli]") {
 
 TEST_CASE("plumb modes prints the two swing modes and exits 0", "[cli]") {
     plumb_test::ScratchFolder folder;
-    const std::string job = write_job(folder, "job.yaml", gentle_job);
+    const std::string job = write_job(folder, "job.yaml", small_job);
     const RunResult r = run_plumb("modes " + quoted(job));
     INFO(r.err);
     CHECK(r.status == 0);
@@ -246,8 +189,8 @@ TEST_CASE("a rope that goes slack fails the lift and bounds the model's validity
     // than a sin 89 deg = 0.30 m/s^2 pulling the other way, so the rope cannot
     // stay taut even at the first instant.
     plumb_test::ScratchFolder folder;
-    std::string text = gentle_job;
-    text += "  initial_angle: 89 deg\n";  // under load:, the last section of gentle_job
+    std::string text = small_job;
+    text += "  initial_angle: 89 deg\n";  // under load:, the last section of small_job
     const std::string job = write_job(folder, "slack.yaml", text);
     const std::string json_path = folder.file("slack.json");
     const RunResult r = run_plumb("check " + quoted(job) + " --json " + quoted(json_path));

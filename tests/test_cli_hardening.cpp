@@ -5,7 +5,6 @@
 #include <catch2/catch.hpp>
 
 #include <sys/stat.h>
-#include <sys/wait.h>
 
 #include <cstdlib>
 #include <filesystem>
@@ -13,66 +12,21 @@
 
 #include <nlohmann/json.hpp>
 
-#include "scratch_folder.hpp"
+#include "plumb_cli.hpp"
 
 namespace fs = std::filesystem;
 
 namespace {
 
-struct RunResult {
-    int status = -1;
-    std::string out;
-    std::string err;
-};
-
-std::string quoted(const std::string& s) {
-    std::string q = "'";
-    for (char c : s) q += c == '\'' ? std::string("'\\''") : std::string(1, c);
-    return q + "'";
-}
-
-// Run plumb under a time limit (a hang fails the test rather than the suite).
-RunResult run_plumb(const std::string& arguments) {
-    plumb_test::ScratchFolder capture;
-    const std::string out = capture.file("stdout"), err = capture.file("stderr");
-    const std::string command = "timeout 60 " + quoted(PLUMB_EXECUTABLE) + " " + arguments + " >" + quoted(out) +
-                                " 2>" + quoted(err) + " </dev/null";
-    const int raw = std::system(command.c_str());
-    RunResult r;
-    r.status = (raw != -1 && WIFEXITED(raw)) ? WEXITSTATUS(raw) : -1;
-    r.out = plumb_test::read_text(out);
-    r.err = plumb_test::read_text(err);
-    return r;
-}
-
-bool contains(const std::string& haystack, const std::string& needle) {
-    return haystack.find(needle) != std::string::npos;
-}
-
-const char* const short_job = R"(job:
-  title: CLI hardening lift
-motion:
-  moves:
-    - distance: 4 m
-      top_speed: 0.5 m/s
-      acceleration: 0.3 m/s^2
-hoist:
-  rope_length: 8 m
-  parts_of_line: 1
-  rated_load: 10 t
-hook_block:
-  mass: 150 kg
-rigging:
-  length: 2 m
-load:
-  mass: 2 t
-analysis:
-  duration_after: 5 s
-)";
+using plumb_test::contains;
+using plumb_test::quoted;
+using plumb_test::run_plumb;
+using plumb_test::RunResult;
+using plumb_test::small_job;
 
 std::string job_in(const plumb_test::ScratchFolder& folder) {
     const std::string path = folder.file("job.yaml");
-    plumb_test::write_text(path, short_job);
+    plumb_test::write_text(path, small_job);
     return quoted(path);
 }
 
@@ -117,7 +71,7 @@ TEST_CASE("the json option with a dash writes the JSON alone to standard output 
     CHECK(r.status == 0);
     const nlohmann::json doc = nlohmann::json::parse(r.out);  // throws if anything else is mixed in
     CHECK(doc.is_object());
-    CHECK(contains(r.err, "CLI hardening lift"));
+    CHECK(contains(r.err, "CLI test lift"));  // small_job's title
     CHECK(folder.listing() == "job.yaml\n");  // no file named '-'
 }
 
@@ -165,7 +119,7 @@ TEST_CASE("a device as the job file exits 2 without reading it", "[cli][hardenin
 TEST_CASE("a job file name that is not UTF-8 still gives valid JSON", "[cli][hardening]") {
     plumb_test::ScratchFolder folder;
     const std::string job = folder.file("lift-\xff.yaml");
-    plumb_test::write_text(job, short_job);
+    plumb_test::write_text(job, small_job);
     const RunResult r = run_plumb("check " + quoted(job) + " --json " + quoted(folder.file("out.json")));
     CHECK(r.status == 0);
     const nlohmann::json doc = nlohmann::json::parse(plumb_test::read_text(folder.file("out.json")));
@@ -176,7 +130,7 @@ TEST_CASE("a speed history in a folder whose name is not UTF-8 still gives valid
     plumb_test::ScratchFolder folder;
     const fs::path odd = folder.path() / "yard-\xfe";
     fs::create_directory(odd);
-    std::string job = short_job;
+    std::string job = small_job;
     job.replace(job.find("  moves:"), job.find("hoist:") - job.find("  moves:"), "  speed_history: log.csv\n");
     plumb_test::write_text((odd / "job.yaml").string(), job);
     plumb_test::write_text((odd / "log.csv").string(), "time [s], speed [m/s]\n0, 0\n2, 0.4\n6, 0.4\n8, 0\n");

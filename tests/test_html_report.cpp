@@ -4,8 +4,6 @@
 // assessment's own check list, sha256sum over the file's bytes.
 #include <catch2/catch.hpp>
 
-#include <sys/wait.h>
-
 #include <algorithm>
 #include <cmath>
 #include <cstdio>
@@ -20,7 +18,7 @@
 #include "plumb/report.hpp"
 #include "plumb/report_facts.hpp"
 #include "plumb/text_layout.hpp"
-#include "scratch_folder.hpp"
+#include "plumb_cli.hpp"
 #include "xml_parse.hpp"
 
 using plumb_test::XmlDocument;
@@ -29,39 +27,16 @@ namespace {
 
 std::string demo_case(const std::string& name) { return std::string(PLUMB_CASES_DIR) + "/" + name; }
 
-std::string quoted(const std::string& s) {
-    std::string q = "'";
-    for (char c : s) {
-        if (c == '\'') q += "'\\''";
-        else q += c;
-    }
-    return q + "'";
-}
-
-struct Run {
-    int status = -1;
-    std::string out;
-    std::string err;
-};
-
-Run run_plumb(const std::string& arguments) {
-    plumb_test::ScratchFolder capture;
-    const std::string out = capture.file("stdout"), err = capture.file("stderr");
-    const std::string command = quoted(PLUMB_EXECUTABLE) + " " + arguments + " >" + quoted(out) + " 2>" +
-                                quoted(err) + " </dev/null";
-    const int raw = std::system(command.c_str());
-    Run r;
-    r.status = (raw != -1 && WIFEXITED(raw)) ? WEXITSTATUS(raw) : -1;
-    r.out = plumb_test::read_text(out);
-    r.err = plumb_test::read_text(err);
-    return r;
-}
+using plumb_test::contains;
+using plumb_test::quoted;
+using plumb_test::run_plumb;
+using plumb_test::RunResult;
 
 // The report plumb writes for a demo case, read back from the file.
 std::string report_of(const std::string& case_name, int expected_status) {
     plumb_test::ScratchFolder folder;
     const std::string html = folder.file("report.html");
-    const Run r = run_plumb("check " + quoted(demo_case(case_name)) + " --report " + quoted(html));
+    const RunResult r = run_plumb("check " + quoted(demo_case(case_name)) + " --report " + quoted(html));
     INFO(r.err);
     REQUIRE(r.status == expected_status);
     REQUIRE(r.out.find("Wrote " + html) != std::string::npos);
@@ -82,10 +57,6 @@ std::string joined(const std::vector<std::string>& texts) {
     std::string all;
     for (const std::string& t : texts) all += t + "\n";
     return all;
-}
-
-bool contains(const std::string& haystack, const std::string& needle) {
-    return haystack.find(needle) != std::string::npos;
 }
 
 }  // namespace
@@ -197,7 +168,7 @@ TEST_CASE("a limit the job does not give shows as NOT CHECKED in the report") {
     text.erase(at, std::string("  dynamic_factor: 1.10\n").size());
     const std::string job = folder.file("job.yaml"), html = folder.file("report.html");
     plumb_test::write_text(job, text);
-    const Run r = run_plumb("check " + quoted(job) + " --report " + quoted(html));
+    const RunResult r = run_plumb("check " + quoted(job) + " --report " + quoted(html));
     REQUIRE(r.status == 0);
     const XmlDocument doc(plumb_test::read_text(html));
     const std::string verdict = joined(doc.values("//div[@id='verdict']"));
@@ -220,7 +191,7 @@ TEST_CASE("the report plots a job with a coarse output step on a finer step") {
 }
 
 TEST_CASE("plumb check writes the report to standard output with a dash and the summary to standard error") {
-    const Run r = run_plumb("check " + quoted(demo_case("coil-transfer.yaml")) + " --report -");
+    const RunResult r = run_plumb("check " + quoted(demo_case("coil-transfer.yaml")) + " --report -");
     REQUIRE(r.status == 0);
     CHECK(r.out.rfind("<!DOCTYPE html>", 0) == 0);
     CHECK(contains(r.err, "OVERALL VERDICT: PASS"));
@@ -228,7 +199,7 @@ TEST_CASE("plumb check writes the report to standard output with a dash and the 
 }
 
 TEST_CASE("plumb check refuses a report and another output both on standard output") {
-    const Run r = run_plumb("check " + quoted(demo_case("coil-transfer.yaml")) + " --json - --report -");
+    const RunResult r = run_plumb("check " + quoted(demo_case("coil-transfer.yaml")) + " --json - --report -");
     CHECK(r.status == 2);
     CHECK(contains(r.err, "cannot both write to standard output"));
     CHECK(r.out.empty());
@@ -237,7 +208,7 @@ TEST_CASE("plumb check refuses a report and another output both on standard outp
 TEST_CASE("plumb check refuses a report named like another output") {
     plumb_test::ScratchFolder folder;
     const std::string same = folder.file("out.txt");
-    const Run r = run_plumb("check " + quoted(demo_case("coil-transfer.yaml")) + " --csv " + quoted(same) +
+    const RunResult r = run_plumb("check " + quoted(demo_case("coil-transfer.yaml")) + " --csv " + quoted(same) +
                             " --report " + quoted(same));
     CHECK(r.status == 2);
     CHECK(contains(r.err, "name the same file"));

@@ -5,8 +5,6 @@
 // the library's check list and options, the CSV of the same run.
 #include <catch2/catch.hpp>
 
-#include <sys/wait.h>
-
 #include <algorithm>
 #include <cstdlib>
 #include <sstream>
@@ -18,7 +16,7 @@
 #include "plumb/assessment.hpp"
 #include "plumb/job_file.hpp"
 #include "plumb/report.hpp"
-#include "scratch_folder.hpp"
+#include "plumb_cli.hpp"
 #include "xml_parse.hpp"
 
 using plumb_test::XmlDocument;
@@ -27,33 +25,10 @@ namespace {
 
 std::string demo_case(const std::string& name) { return std::string(PLUMB_CASES_DIR) + "/" + name; }
 
-std::string quoted(const std::string& s) {
-    std::string q = "'";
-    for (char c : s) q += c == '\'' ? std::string("'\\''") : std::string(1, c);
-    return q + "'";
-}
-
-struct Run {
-    int status = -1;
-    std::string out, err;
-};
-
-Run run_plumb(const std::string& arguments) {
-    plumb_test::ScratchFolder capture;
-    const std::string out = capture.file("stdout"), err = capture.file("stderr");
-    const int raw = std::system((quoted(PLUMB_EXECUTABLE) + " " + arguments + " >" + quoted(out) + " 2>" + quoted(err) +
-                                 " </dev/null")
-                                    .c_str());
-    Run r;
-    r.status = (raw != -1 && WIFEXITED(raw)) ? WEXITSTATUS(raw) : -1;
-    r.out = plumb_test::read_text(out);
-    r.err = plumb_test::read_text(err);
-    return r;
-}
-
-bool contains(const std::string& haystack, const std::string& needle) {
-    return haystack.find(needle) != std::string::npos;
-}
+using plumb_test::contains;
+using plumb_test::quoted;
+using plumb_test::run_plumb;
+using plumb_test::RunResult;
 
 std::string joined(const std::vector<std::string>& texts) {
     std::string all;
@@ -88,7 +63,7 @@ std::string coil_with_scatter(const plumb_test::ScratchFolder& folder) {
 }
 
 XmlDocument report_from(const std::string& arguments, const std::string& html, int expected_status) {
-    const Run r = run_plumb(arguments + " --report " + quoted(html));
+    const RunResult r = run_plumb(arguments + " --report " + quoted(html));
     INFO(r.err);
     REQUIRE(r.status == expected_status);
     return XmlDocument(plumb_test::read_text(html));
@@ -213,7 +188,7 @@ TEST_CASE("the advise report says plainly that no stop was searched when the job
 TEST_CASE("plumb advise refuses a report over the job file") {
     plumb_test::ScratchFolder folder;
     const std::string job = coil_with_stop(folder);
-    const Run r = run_plumb("advise " + quoted(job) + " --report " + quoted(job));
+    const RunResult r = run_plumb("advise " + quoted(job) + " --report " + quoted(job));
     CHECK(r.status == 2);
     CHECK(contains(r.err, "it would be overwritten"));
 }

@@ -17,6 +17,7 @@
 #include "plumb/quantities.hpp"
 #include "plumb/report.hpp"
 #include "plumb/simulation.hpp"
+#include "plumb_cli.hpp"
 
 using namespace plumb;
 
@@ -26,9 +27,7 @@ plumb::Job demo_job(const std::string& name = "coil-transfer.yaml") {
     return load_job_file(std::string(PLUMB_CASES_DIR) + "/" + name);
 }
 
-bool contains(const std::string& haystack, const std::string& needle) {
-    return haystack.find(needle) != std::string::npos;
-}
+using plumb_test::contains;
 
 std::vector<std::string> csv_columns(const std::string& csv) {
     std::vector<std::string> columns;

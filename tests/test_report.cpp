@@ -16,7 +16,7 @@
 #include "plumb/model.hpp"
 #include "plumb/output_files.hpp"
 #include "plumb/report.hpp"
-#include "scratch_folder.hpp"
+#include "plumb_cli.hpp"
 
 namespace {
 
@@ -136,9 +136,7 @@ std::string squeeze(const std::string& text) {
     return out;
 }
 
-bool contains(const std::string& haystack, const std::string& needle) {
-    return haystack.find(needle) != std::string::npos;
-}
+using plumb_test::contains;
 
 // The assumptions every output states for the job's model.
 std::vector<std::string> model_assumptions() { return synthetic_assessment().prediction.model.assumptions; }

@@ -1,12 +1,9 @@
 // The integrator interface on systems with closed-form answers: event
 // location, mode changes with restart, exceptions from the model, the step
 // cap, workspace reuse; the rigid model's analytic Jacobian; the support path.
-#include <sys/wait.h>
 
 #include <catch2/catch.hpp>
 #include <cmath>
-#include <cstdlib>
-#include <fstream>
 #include <numbers>
 #include <random>
 #include <stdexcept>
@@ -18,7 +15,7 @@
 #include "plumb/errors.hpp"
 #include "plumb/integrator.hpp"
 #include "plumb/model.hpp"
-#include "scratch_folder.hpp"
+#include "plumb_cli.hpp"
 
 using namespace plumb;
 
@@ -331,19 +328,12 @@ std::string with_integrator(const std::string& text, const char* integrator) {
 // Run `plumb check` on a job text: a verdict is exit 0 or 1 with finite numbers.
 void check_runs_to_a_verdict(const std::string& job_text) {
     plumb_test::ScratchFolder folder;
-    const std::string job = folder.file("job.yaml"), out = folder.file("out"), err = folder.file("err");
-    {
-        std::ofstream f(job);
-        f << job_text;
-    }
-    const std::string command = std::string("'") + PLUMB_EXECUTABLE + "' check '" + job + "' >'" + out + "' 2>'" + err + "'";
-    const int raw = std::system(command.c_str());
-    const int status = (raw != -1 && WIFEXITED(raw)) ? WEXITSTATUS(raw) : -1;
-    const std::string summary = plumb_test::read_text(out);
-    INFO(plumb_test::read_text(err));
-    CHECK((status == 0 || status == 1));
-    CHECK(summary.find("nan") == std::string::npos);
-    CHECK(summary.find("inf ") == std::string::npos);
+    const plumb_test::RunResult r =
+        plumb_test::run_plumb("check " + plumb_test::quoted(plumb_test::write_job(folder, "job.yaml", job_text)));
+    INFO(r.err);
+    CHECK((r.status == 0 || r.status == 1));
+    CHECK(r.out.find("nan") == std::string::npos);
+    CHECK(r.out.find("inf ") == std::string::npos);
 }
 
 const char* const integrator_keys[] = {"runge-kutta", "cvode-bdf"};

@@ -4,6 +4,7 @@
 // record. Job files here are invented for these tests.
 #include <catch2/catch.hpp>
 
+#include <cmath>
 #include <fstream>
 #include <sstream>
 #include <string>
@@ -16,6 +17,7 @@
 #include "plumb/report_facts.hpp"
 #include "plumb/sha256.hpp"
 #include "plumb/text_layout.hpp"
+#include "plumb_cli.hpp"
 
 using namespace plumb;
 using nlohmann::json;
@@ -58,12 +60,8 @@ limits:
   rope_design_factor: 3
 )";
 
-std::string replaced(std::string text, const std::string& from, const std::string& to) {
-    const std::size_t at = text.find(from);
-    REQUIRE(at != std::string::npos);
-    text.replace(at, from.size(), to);
-    return text;
-}
+using plumb_test::contains;
+using plumb_test::replaced;
 
 LiftAssessment assess_text(const std::string& yaml) { return assess_lift(parse_job(yaml, "verdict-test.yaml", "."), false); }
 
@@ -73,10 +71,6 @@ const CheckResult& check_named(const LiftAssessment& a, const std::string& name)
     }
     FAIL("no check named " << name);
     return a.checks.front();
-}
-
-bool contains(const std::string& haystack, const std::string& needle) {
-    return haystack.find(needle) != std::string::npos;
 }
 
 // Runs of white space as one space, so that wrapped text compares.
@@ -382,4 +376,58 @@ TEST_CASE("four-digit rounding keeps large values out of exponent form", "[verdi
     CHECK(text::num4(17055.6) == "17056");
     CHECK(text::num4(1.25432) == "1.254");
     CHECK(text::percent4(0.92913) == "92.91 %");
+}
+
+TEST_CASE("a taut check is a CAUTION from the caution fraction of tension lost", "[verdicts]") {
+    // A pendulum released from rest at theta0 has its least rope tension
+    // m g cos theta0 at the turning points (textbook pendulum tension, see
+    // docs/sources.md sec. 3): 1 - cos 65 deg = 57.7 % of the static tension
+    // is lost. A 200 t hook block under a 1 kg load swings as that pendulum.
+    const std::string swing = R"(job:
+  title: Taut caution swing
+motion:
+  fixed_support: true
+hoist:
+  rope_length: 10 m
+  parts_of_line: 1
+  rated_load: 250 t
+hook_block:
+  mass: 200 t
+rigging:
+  length: 2 m
+load:
+  mass: 1 kg
+  initial_angle: 65 deg
+limits:
+  caution_at: 55 %
+analysis:
+  duration_after: 8 s
+)";
+    const double lost = 1 - std::cos(65.0 * 3.14159265358979323846 / 180);
+    const LiftAssessment at_55 = assess_text(swing);
+    const CheckResult& c = check_named(at_55, "hoist_rope_taut");
+    CHECK(c.utilisation == Approx(lost).epsilon(1e-4));  // the 1 kg load's share of the tension is 5e-6
+    CHECK(c.verdict == Verdict::caution);
+    const LiftAssessment at_60 = assess_text(replaced(swing, "caution_at: 55 %", "caution_at: 60 %"));
+    CHECK(check_named(at_60, "hoist_rope_taut").verdict == Verdict::pass);
+}
+
+TEST_CASE("a job may name plain sheave bearings for the common-practice efficiency 0.96", "[verdicts]") {
+    const LiftAssessment a = assess_text(replaced(full_job, "  rated_load: 5 t\n", "  rated_load: 5 t\n  sheave_bearing: plain\n"));
+    // Plain (bushed) sheaves about 0.96 per sheave: sources.md sec. 10 [practice].
+    CHECK(a.job.hoist.sheave_efficiency == 0.96);
+    const CheckResult& c = check_named(a, "lead_line_pull");
+    const double total = a.prediction.peak(Quantity::hoist_rope_tension).value;
+    CHECK(c.value == Approx(total / (0.96 + 0.96 * 0.96)).epsilon(1e-12));
+    CHECK(contains(c.note, "plain bearings, from the job: common practice, no source"));
+    CHECK(contains(format_json(a, UnitSystem::si), "plain bearings, from the job"));
+}
+
+TEST_CASE("a sheave bearing type goes alone: not with an efficiency, and only roller or plain", "[verdicts]") {
+    const std::string both = replaced(full_job, "  rated_load: 5 t\n",
+                                      "  rated_load: 5 t\n  sheave_bearing: roller\n  sheave_efficiency: 0.97\n");
+    CHECK_THROWS_WITH(parse_job(both, "verdict-test.yaml", "."), Catch::Contains("not both"));
+    const std::string other = replaced(full_job, "  rated_load: 5 t\n", "  rated_load: 5 t\n  sheave_bearing: bronze\n");
+    CHECK_THROWS_WITH(parse_job(other, "verdict-test.yaml", "."),
+                      Catch::Contains("hoist.sheave_bearing") && Catch::Contains("roller") && Catch::Contains("plain"));
 }

@@ -20,8 +20,9 @@ namespace plumb {
 struct LiftPrediction {
     ModelDescription model;    // modes, static loads, assumptions (with the lift's rules), validity rule
     SimulationResult simulation;
-    double end_of_motion = 0;  // s, when the last move ends
+    double end_of_motion = 0;  // s, when the last move ends; with no end (held acceleration): end_time
     double end_time = 0;       // s, end of the simulated free swing
+    bool comes_to_rest = true;  // false: the support never comes to rest (no residual swing)
     int parts_of_line = 1;
     double sling_leg_factor = 0;  // leg tension per unit rigging resultant
     double sheave_efficiency = 1;  // per sheave, for the lead-line pull
@@ -63,6 +64,10 @@ struct CheckResult {
     std::string note;                   // for NOT CHECKED: why the check could not be made
 };
 
+// Where the job's sheave efficiency comes from, in words for every output:
+// the job's own number, its bearing type, or the default (both common practice).
+std::string sheave_efficiency_source(const Hoist& hoist);
+
 // How the rated load is compared: with the gross hook load (hook block,
 // rigging and load) or, for a net rating, with the load below the hook.
 const char* rating_basis_words(RatingBasis b);
@@ -95,6 +100,10 @@ double static_share_of_rated_load(const Job& job, const LiftPrediction& p);
 // Seconds of free swing after the last move when the job does not say: four
 // periods of the slow swing mode, at least 20 s (20 s for a model without modes).
 double automatic_duration_after(const std::optional<SwingModes>& modes);
+// When the simulation ends: the end of motion plus the free swing after it
+// (the job's duration_after or the automatic one), or, for a support that
+// never comes to rest (end_of_motion infinite), the held acceleration's duration.
+double simulated_end_time(const Job& job, double end_of_motion, const std::optional<SwingModes>& modes);
 
 // The model's description with the assumptions of the lift arithmetic (line
 // pull, sling legs) added, as every output states them.

@@ -33,6 +33,15 @@ struct SpeedSample {
     double speed = 0;  // m/s, signed
 };
 
+// A constant acceleration from rest held to the end of the simulation: the
+// support never decelerates and never comes to rest (a reference case, such as
+// the pendulum in a uniformly accelerating frame). There is no end of motion,
+// so the simulated time is given here.
+struct HeldAcceleration {
+    double acceleration = 0;  // m/s^2, signed, not zero
+    double duration = 0;      // s, > 0: the whole simulated time
+};
+
 // Slewing (elastic model only): the jib turns about a vertical axis through
 // the slew centre while the trolley runs along it (or a luffing boom's radius
 // changes). The slew centre starts at the origin and rides on the x and y
@@ -50,6 +59,8 @@ struct SlewSpec {
 struct SupportMotionSpec {
     std::vector<Move> moves;                 // either moves ...
     std::vector<SpeedSample> speed_history;  // ... or a speed history (exactly one is non-empty)
+    // ... or neither and a held acceleration (`held_acceleration`).
+    std::optional<HeldAcceleration> held_acceleration;
     std::string speed_history_file;          // where the history came from, for the report
     // m/s^2, > 0: the drive's emergency (quick-stop) deceleration; only advice
     // reads it (the worst-case stop). None: not known, no stop is searched.
@@ -66,6 +77,13 @@ struct SupportMotionSpec {
     std::optional<SlewSpec> slew;
 };
 
+// The bearing type of the hoist's sheaves, when the job names it instead of an
+// efficiency: each stands for a common-practice efficiency (sheave_efficiency()).
+enum class SheaveBearing { roller, plain };
+// Common-practice efficiency of one sheave with these bearings (no published
+// source confirmed: docs/sources.md sec. 10): 0.98 roller or ball, 0.96 plain.
+constexpr double sheave_efficiency(SheaveBearing bearing) { return bearing == SheaveBearing::plain ? 0.96 : 0.98; }
+
 // What the hoist's rated load covers. gross: the rating is compared with the
 // whole hook load (hook block, rigging and load); net: the hook block and
 // rigging are deducted (the rating is for the load below the hook).
@@ -80,8 +98,9 @@ struct Hoist {
     RatingBasis rating_basis = RatingBasis::gross;
     // Efficiency of one sheave (rope tension out over in, hoisting). The
     // default is the common-practice value for roller-bearing sheaves.
-    double sheave_efficiency = 0.98;
-    bool sheave_efficiency_given = false;  // false: the default above was used
+    double sheave_efficiency = plumb::sheave_efficiency(SheaveBearing::roller);
+    bool sheave_efficiency_given = false;  // false: the default above was used, or the bearing's value
+    std::optional<SheaveBearing> sheave_bearing;  // named in the job (hoist.sheave_bearing); sets the efficiency
 };
 
 struct HookBlock {

@@ -46,7 +46,8 @@ public:
     virtual ~SupportTrajectory() = default;
     virtual SupportKinematics at(double t, std::size_t interval) const = 0;
     virtual const std::vector<double>& breaks() const = 0;
-    // When every channel has come to rest for good.
+    // When every channel has come to rest for good; +infinity when one never
+    // does (a held acceleration).
     virtual double end_of_motion() const = 0;
 };
 
@@ -72,6 +73,10 @@ public:
     static SupportMotion from_spec(const SupportMotionSpec& spec);
     // No motion at all: one endless piece at rest at 0.
     static SupportMotion at_rest();
+    // A constant acceleration from rest held for the whole simulated time
+    // (held.duration), after which the support keeps the speed it reached:
+    // it never comes to rest, so end_of_motion() is +infinity.
+    static SupportMotion held(const HeldAcceleration& held);
     // Build from a contiguous piece list that starts and ends at rest (shaped_motion.cpp).
     static SupportMotion from_pieces(std::vector<MotionPiece> pieces);
 
@@ -83,8 +88,10 @@ public:
     double acceleration(double t, std::size_t piece) const { return pieces_[piece].acceleration_at(t); }
 
     const std::vector<MotionPiece>& pieces() const { return pieces_; }
-    // Time when the support comes to rest for good after the last move.
+    // Time when the support comes to rest for good after the last move;
+    // +infinity for a motion that never comes to rest (held()).
     double end_of_motion() const;
+    bool comes_to_rest() const { return comes_to_rest_; }
     // The largest |acceleration| anywhere in the motion.
     double peak_acceleration() const;
     double peak_speed() const;
@@ -92,6 +99,7 @@ public:
 
 private:
     std::vector<MotionPiece> pieces_;
+    bool comes_to_rest_ = true;
 };
 
 // Where the jib starts: the suspension point's distance from the slew centre

@@ -125,6 +125,10 @@ AccelerationAdvice largest_top_speed_scale(const Job& job, double lo, double hi)
 }
 
 std::vector<MotionOutcome> motion_options(const Job& job, int max_periods) {
+    if (job.motion.held_acceleration) {
+        throw UsageError("advice shapes and times motions that end at rest; a held acceleration "
+                         "(motion.held_acceleration) never stops: use plumb check for it");
+    }
     const SupportMotion planned = SupportMotion::from_spec(job.motion);
     std::vector<MotionOutcome> options;
     options.push_back(assess_motion(job, planned, "planned"));

@@ -146,7 +146,7 @@ std::string slack_record_words(const LiftPrediction& p, MemberId member) {
 
 // A rope or sling can only pull. Where it goes slack the load falls back into
 // it; whether the model can follow that is its validity rule.
-CheckResult taut_check(const LiftPrediction& p, MemberId member, std::string name, std::string description,
+CheckResult taut_check(const Job& job, const LiftPrediction& p, MemberId member, std::string name, std::string description,
                        const Peak& least, double static_tension, std::optional<double> slack_time) {
     CheckResult c;
     c.name = std::move(name);
@@ -155,13 +155,14 @@ CheckResult taut_check(const LiftPrediction& p, MemberId member, std::string nam
     c.value = least.value;
     c.limit = 0;
     // Utilisation of a taut check: how much of the static tension is lost at
-    // the least (100 % = slack); only slack fails.
-    c.utilisation = 1 - least.value / static_tension;
+    // the least (100 % = slack). Slack fails; from the caution fraction on
+    // (the least tension under 10 % of static at the default 90 %) it is a
+    // CAUTION, as for every other check.
+    set_utilisation(c, 1 - least.value / static_tension, job.limits.caution_fraction);
     c.utilisation_basis = "tension lost from static, over the static tension (100 % = slack)";
-    c.margin = 1 - c.utilisation;
     c.value_time = least.time;
     c.first_exceedance = slack_time;
-    c.verdict = slack_time ? Verdict::fail : Verdict::pass;
+    if (slack_time) c.verdict = Verdict::fail;
     if (slack_time) {
         c.note = "goes slack at t = " + format_time(*slack_time) + " s";
         if (p.model.validity == ValidityRule::slack_ends_validity) {
@@ -232,6 +233,15 @@ double automatic_duration_after(const std::optional<SwingModes>& modes) {
     return modes ? std::max(20.0, 4 * modes->first.period) : 20.0;
 }
 
+double simulated_end_time(const Job& job, double end_of_motion, const std::optional<SwingModes>& modes) {
+    if (std::isfinite(end_of_motion))
+        return end_of_motion + job.analysis.duration_after.value_or(automatic_duration_after(modes));
+    if (!job.motion.held_acceleration)
+        throw InputError("the support motion never comes to rest, but the job gives no simulated time "
+                         "(motion.held_acceleration.duration)");
+    return job.motion.held_acceleration->duration;
+}
+
 std::vector<WatchLevel> watch_levels(const Job& job, const StaticLoads& static_loads) {
     const Limits& l = job.limits;
     std::vector<WatchLevel> w;
@@ -283,7 +293,8 @@ ModelDescription describe_for_lift(const SwingModel& model) {
         "Line pull per part of line = total hoist rope tension / parts of line (no sheave losses). "
         "The lead-line pull, checked against the rope WLL and the rope design factor, adds sheave "
         "losses while hoisting: W / (e + e^2 + ... + e^n) for n parts of line and an efficiency e "
-        "per sheave (default 0.98, roller bearings: common practice, no source); lead sheaves "
+        "per sheave (given, or from the sheave bearing type: 0.98 roller, the default, 0.96 plain; "
+        "common practice, no source); lead sheaves "
         "between the reeving and the drum are not counted.");
     d.assumptions.push_back("The swing dynamic factor is the peak over the static hoist rope tension; the " +
                             d.name + " puts in it " + d.dynamic_factor_scope + ".");
@@ -296,8 +307,10 @@ LiftPrediction predict_lift(const Job& job, const SwingModel& model, const Model
                             const std::vector<WatchLevel>& watch, double output_step) {
     LiftPrediction p;
     p.model = description;
-    p.end_of_motion = model.trajectory().end_of_motion();  // every channel, not only x
-    p.end_time = p.end_of_motion + job.analysis.duration_after.value_or(automatic_duration_after(p.model.modes));
+    const double end_of_motion = model.trajectory().end_of_motion();  // every channel, not only x
+    p.end_time = simulated_end_time(job, end_of_motion, p.model.modes);
+    p.comes_to_rest = std::isfinite(end_of_motion);
+    p.end_of_motion = p.comes_to_rest ? end_of_motion : p.end_time;
     check_work_budget(job, p.model.modes, p.end_time, output_step);
 
     SimulationRequest request;
@@ -326,7 +339,7 @@ std::string sheave_words(const Job& job) {
     std::ostringstream s;
     s << job.hoist.parts_of_line << (job.hoist.parts_of_line == 1 ? " part" : " parts") << " of line, sheave efficiency "
       << job.hoist.sheave_efficiency;
-    s << (job.hoist.sheave_efficiency_given ? " (from the job)" : " (default for roller bearings: common practice, no source)");
+    s << " (" << sheave_efficiency_source(job.hoist) << ")";
     return s.str();
 }
 
@@ -387,7 +400,11 @@ std::vector<CheckResult> run_checks(const Job& job, const LiftPrediction& p, con
     checks.push_back(swing_check(Quantity::load_offset, "load_offset",
                                  "peak horizontal offset of the load from the support", l.load_offset));
     const char* residual_words = "load offset amplitude after the last move ends";
-    if (l.residual_swing) {
+    if (!p.comes_to_rest) {
+        checks.push_back(not_checked("residual_swing", residual_words, Dimension::length,
+                                     "the support never comes to rest (held acceleration to the end of the "
+                                     "simulation), so there is no residual swing"));
+    } else if (l.residual_swing) {
         const Peak& residual = s.residual[Quantity::load_offset];
         CheckResult c = limit_check(job, "residual_swing", residual_words, Dimension::length, residual.value,
                                     residual.time, *l.residual_swing, first_at(residual_watch(job)));
@@ -465,10 +482,10 @@ std::vector<CheckResult> run_checks(const Job& job, const LiftPrediction& p, con
         checks.push_back(lift_off_check(
             job, p, l.dynamic_factor ? first_at(dynamic_factor_watch(job, p.model.static_loads)) : std::nullopt));
     if (job.lift_off) checks.push_back(stays_lifted_check(p));
-    checks.push_back(taut_check(p, MemberId::hoist_rope, "hoist_rope_taut", "least hoist rope tension (must stay above zero)",
+    checks.push_back(taut_check(job, p, MemberId::hoist_rope, "hoist_rope_taut", "least hoist rope tension (must stay above zero)",
                                 s.least[Quantity::hoist_rope_tension], p.model.static_loads.hoist_rope_tension,
                                 p.hoist_rope_slack_time));
-    checks.push_back(taut_check(p, MemberId::rigging, "rigging_taut", "least rigging tension (must stay above zero)",
+    checks.push_back(taut_check(job, p, MemberId::rigging, "rigging_taut", "least rigging tension (must stay above zero)",
                                 s.least[Quantity::rigging_tension], p.model.static_loads.rigging_tension,
                                 p.rigging_slack_time));
     if (!job.obstacles.zones.empty())
@@ -488,6 +505,15 @@ Verdict overall_verdict(const std::vector<CheckResult>& checks) {
 std::size_t checks_not_made(const std::vector<CheckResult>& checks) {
     return static_cast<std::size_t>(std::count_if(
         checks.begin(), checks.end(), [](const CheckResult& c) { return c.verdict == Verdict::not_checked; }));
+}
+
+std::string sheave_efficiency_source(const Hoist& hoist) {
+    if (hoist.sheave_efficiency_given) return "from the job";
+    if (hoist.sheave_bearing) {
+        return std::string(*hoist.sheave_bearing == SheaveBearing::plain ? "plain" : "roller") +
+               " bearings, from the job: common practice, no source";
+    }
+    return "default for roller bearings: common practice, no source";
 }
 
 const char* rating_basis_words(RatingBasis b) {

@@ -55,11 +55,12 @@ const KeyList top_keys{"job", "motion", "hoist", "hook_block", "rigging",
                        "lift_off"};  // the load starts on the ground (elastic model)
 const KeyList job_keys{"title", "reference"};
 const KeyList motion_keys{"moves", "speed_history", "fixed_support", "emergency_deceleration", "y_moves", "hoist_moves",
-                          "slew"};
+                          "held_acceleration", "slew"};
+const KeyList held_keys{"acceleration", "duration"};
 const KeyList slew_keys{"initial_radius", "initial_angle", "slew_moves", "radius_moves"};
 const KeyList move_keys{"distance", "top_speed", "acceleration", "deceleration", "jerk", "pause_before"};
 const KeyList hoist_keys{"rope_length", "parts_of_line", "rated_load", "rope_wll",
-                         "rope_minimum_breaking_load", "rated_load_basis", "sheave_efficiency"};
+                         "rope_minimum_breaking_load", "rated_load_basis", "sheave_efficiency", "sheave_bearing"};
 const KeyList hook_block_keys{"mass"};
 const KeyList rigging_keys{"length", "legs", "leg_angle_from_horizontal", "leg_angle_from_vertical",
                            "leg_length", "spread", "legs_bearing", "leg_wll"};
@@ -469,6 +470,27 @@ std::vector<Move> read_move_list(const Section& s, const Entry& list, const Move
     return result;
 }
 
+// A constant acceleration from rest held to the end of the simulation (a
+// reference case: the support never stops, so the simulated time is given).
+HeldAcceleration read_held_acceleration(const Section& s) {
+    HeldAcceleration h;
+    h.acceleration = s.quantity("acceleration", Dimension::acceleration);
+    if (h.acceleration == 0)
+        s.fail_at("acceleration", "must not be zero: the support accelerates (negative: backwards); for no "
+                                  "motion at all use fixed_support: true");
+    s.check_plausible("acceleration", std::fabs(h.acceleration), Dimension::acceleration, min_acceleration,
+                      max_acceleration, "acceleration");
+    h.duration = s.quantity("duration", Dimension::time);
+    s.check_range("duration", h.duration, Dimension::time, 0, false, max_duration_after, true,
+                  "the whole simulated time: the support accelerates throughout");
+    const double end_speed = std::fabs(h.acceleration) * h.duration;
+    if (end_speed > max_top_speed)
+        s.fail_at("duration", "the support would reach " + show(end_speed, Dimension::speed) + " by the end (more than " +
+                                  show(max_top_speed, Dimension::speed) +
+                                  "): shorten the duration or lower the acceleration");
+    return h;
+}
+
 // motion.slew: the jib's start and its slew and radius moves (elastic model only).
 SlewSpec read_slew(const Section& s) {
     SlewSpec slew;
@@ -498,6 +520,13 @@ SlewSpec read_slew(const Section& s) {
 void read_motion(const Section& s, Job& job) {
     const Entry* moves = s.find("moves");
     const Entry* history = s.find("speed_history");
+    if (const Entry* held = s.find("held_acceleration")) {
+        for (const char* key : {"moves", "speed_history", "fixed_support", "emergency_deceleration", "slew"})
+            if (const Entry* e = s.find(key))
+                s.fail_at_key(*e, std::string("'") + key + "' cannot go with held_acceleration (an acceleration "
+                                  "held to the end of the simulation, no moves and no stop): give only one of them");
+        job.motion.held_acceleration = read_held_acceleration(s.section(*held, held_keys));
+    }
     const Entry* slew = s.find("slew");
     // The elastic model's further channels: travel along y and the hoist
     // (distance > 0 pays rope out, lowering the hook); read with a fixed travel
@@ -516,10 +545,11 @@ void read_motion(const Section& s, Job& job) {
     }
     if (moves != nullptr && history != nullptr)
         s.fail_at_key(*history, "give either moves or speed_history, not both");
-    if (moves == nullptr && history == nullptr && slew == nullptr)
+    if (moves == nullptr && history == nullptr && slew == nullptr && !job.motion.held_acceleration)
         fail(s.ctx(), s.mark(), s.path(),
              "no support motion: give moves (a list of travel moves), speed_history (a CSV file), slew "
-             "(slewing, elastic model) or fixed_support: true (no motion: a free swing)");
+             "(slewing, elastic model), fixed_support: true (no motion: a free swing) or held_acceleration "
+             "(a constant acceleration to the end of the simulation)");
 
     if (const auto stop = s.optional_quantity("emergency_deceleration", Dimension::acceleration)) {
         s.check_positive("emergency_deceleration", *stop, Dimension::acceleration);
@@ -533,6 +563,22 @@ void read_motion(const Section& s, Job& job) {
 }
 
 // ---------------------------------------------------------------- hoist and hook
+
+// The sheaves' bearing type, for a common-practice efficiency (sources.md
+// sec. 10): either it or a number (sheave_efficiency), not both.
+void read_sheave_bearing(const Section& s, Hoist& h) {
+    const Entry* e = s.find("sheave_bearing");
+    if (e == nullptr) return;
+    if (const Entry* number = s.find("sheave_efficiency"))
+        s.fail_at_key(*number, "give either sheave_efficiency (a number) or sheave_bearing (roller or plain), not both");
+    const std::string bearing(trim(s.text(*e)));
+    if (bearing == "roller") h.sheave_bearing = SheaveBearing::roller;
+    else if (bearing == "plain") h.sheave_bearing = SheaveBearing::plain;
+    else
+        s.fail_at(*e, "expected roller (roller or ball bearings: efficiency 0.98) or plain (plain or bushed "
+                      "bearings: 0.96), got '" + bearing + "'; or give sheave_efficiency as a number");
+    h.sheave_efficiency = sheave_efficiency(*h.sheave_bearing);
+}
 
 void read_hoist(const Section& s, Hoist& h) {
     h.rope_length = s.quantity("rope_length", Dimension::length);
@@ -575,6 +621,7 @@ void read_hoist(const Section& s, Hoist& h) {
             s.fail_at(*e, "expected gross (the rated load covers hook block, rigging and load) or net (hook "
                           "block and rigging deducted), got '" + basis + "'");
     }
+    read_sheave_bearing(s, h);
     if (const auto e = s.optional_quantity("sheave_efficiency", Dimension::ratio)) {
         s.check_range("sheave_efficiency", *e, Dimension::ratio, 0.5, true, 1, true,
                       "the efficiency of one sheave, e.g. 0.98 (roller bearings) or 0.96 (plain bearings)");
@@ -964,6 +1011,9 @@ Job build_job(Context ctx, const YAML::Node& root) {
         const Section analysis = top.section(*e, analysis_keys);
         read_analysis(analysis, job.analysis);
         read_model(analysis, job.analysis);
+        if (const Entry* after = analysis.find("duration_after"); after && job.motion.held_acceleration)
+            analysis.fail_at_key(*after, "a held acceleration never ends, so there is no free swing after it: the "
+                                         "simulated time is motion.held_acceleration.duration; remove this key");
     }
     const Entry* rope = top.find("rope");
     if (job.analysis.model == SwingModelChoice::elastic) {

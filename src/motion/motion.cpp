@@ -153,7 +153,20 @@ SupportMotion SupportMotion::from_speed_history(const std::vector<SpeedSample>& 
 }
 
 SupportMotion SupportMotion::from_spec(const SupportMotionSpec& spec) {
+    if (spec.held_acceleration) return held(*spec.held_acceleration);
     return spec.moves.empty() ? from_speed_history(spec.speed_history) : from_moves(spec.moves);
+}
+
+SupportMotion SupportMotion::held(const HeldAcceleration& held) {
+    // The acceleration steps on at t = 0 and lasts the whole simulated time;
+    // the coast after it lies beyond the simulation's end and only keeps the
+    // motion defined (and its peak speed finite) for every t.
+    const double a = held.acceleration, t = held.duration;
+    SupportMotion motion;
+    motion.pieces_.push_back({0, t, {0, 0, a}, 0});
+    motion.pieces_.push_back({t, infinity, {a * t * t / 2, a * t, 0}, 0});
+    motion.comes_to_rest_ = false;
+    return motion;
 }
 
 SupportState SupportMotion::at(double t) const {
@@ -163,7 +176,7 @@ SupportState SupportMotion::at(double t) const {
     return std::prev(after)->at(t);
 }
 
-double SupportMotion::end_of_motion() const { return pieces_.back().start; }
+double SupportMotion::end_of_motion() const { return comes_to_rest_ ? pieces_.back().start : infinity; }
 
 double SupportMotion::peak_acceleration() const {
     double peak = 0;

@@ -45,8 +45,9 @@ json job_json(const LiftAssessment& a, UnitSystem u) {
     const Job& job = a.job;
     const MotionDigest m = digest_motion(job.motion);
     json motion = {
-        {"kind", job.motion.fixed_support ? "fixed_support"
-                 : m.from_history         ? "speed_history"
+        {"kind", job.motion.fixed_support         ? "fixed_support"
+                 : job.motion.held_acceleration   ? "held_acceleration"
+                 : m.from_history                 ? "speed_history"
                  : m.count == 0 && job.motion.slew ? "slew"
                                                    : "moves"},
         {m.from_history ? "speed_history_rows" : "moves", m.count},
@@ -55,7 +56,11 @@ json job_json(const LiftAssessment& a, UnitSystem u) {
         {"peak_speed", quantity_json(m.peak_speed, Dimension::speed, u)},
         {"peak_acceleration", quantity_json(m.peak_acceleration, Dimension::acceleration, u)},
         {"end_of_motion", seconds_json(a.prediction.end_of_motion)},
+        {"comes_to_rest", a.prediction.comes_to_rest},
     };
+    if (job.motion.held_acceleration) {
+        motion["held_acceleration"] = quantity_json(job.motion.held_acceleration->acceleration, Dimension::acceleration, u);
+    }
     if (m.from_history) motion["speed_history_file"] = job.motion.speed_history_file;
     if (job.motion.slew) {
         const SlewDigest sd = digest_slew(*job.motion.slew);
@@ -80,7 +85,7 @@ json job_json(const LiftAssessment& a, UnitSystem u) {
           {"rated_load", quantity_json(job.hoist.rated_load, Dimension::load, u)},
           {"rated_load_basis", job.hoist.rating_basis == RatingBasis::net ? "net" : "gross"},
           {"sheave_efficiency", job.hoist.sheave_efficiency},
-          {"sheave_efficiency_source", job.hoist.sheave_efficiency_given ? "job" : "default: roller bearings, common practice, no source"},
+          {"sheave_efficiency_source", sheave_efficiency_source(job.hoist)},
           {"rope_wll_per_line", optional_quantity_json(job.hoist.rope_wll, Dimension::force, u)},
           {"rope_minimum_breaking_load_per_line",
            optional_quantity_json(job.hoist.rope_minimum_breaking_load, Dimension::force, u)}}},

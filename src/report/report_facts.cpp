@@ -84,6 +84,7 @@ MotionDigest digest_motion(const SupportMotionSpec& spec) {
         for (const Move& m : spec.moves) d.total_travel += std::abs(m.distance);
     }
     const SupportMotion motion = SupportMotion::from_spec(spec);
+    if (spec.held_acceleration) d.total_travel = std::abs(motion.final_position());
     d.net_travel = motion.final_position();
     d.peak_speed = motion.peak_speed();
     d.peak_acceleration = motion.peak_acceleration();
@@ -304,6 +305,9 @@ std::vector<InputFact> input_facts(const LiftAssessment& a, UnitSystem u) {
     std::string motion;
     if (job.motion.fixed_support) {
         motion = "fixed support (no moves: a free swing from the initial condition)";
+    } else if (job.motion.held_acceleration) {
+        motion = "held acceleration " + qty(job.motion.held_acceleration->acceleration, Dimension::acceleration, u) +
+                 " from rest to the end of the simulation";
     } else if (m.from_history) {
         motion = "speed history of " + std::to_string(m.count) + " rows";
         if (!job.motion.speed_history_file.empty()) motion += " from " + job.motion.speed_history_file;
@@ -317,7 +321,8 @@ std::vector<InputFact> input_facts(const LiftAssessment& a, UnitSystem u) {
                   qty(m.net_travel, Dimension::length, u) + "; peak speed " + qty(m.peak_speed, Dimension::speed, u) +
                   "; peak acceleration " + qty(m.peak_acceleration, Dimension::acceleration, u);
     }
-    motion += "; support at rest for good from t = " + seconds(a.prediction.end_of_motion);
+    motion += a.prediction.comes_to_rest ? "; support at rest for good from t = " + seconds(a.prediction.end_of_motion)
+                                         : std::string("; the support never comes to rest");
     if (job.motion.slew) {
         const SlewDigest sd = digest_slew(*job.motion.slew);
         motion += "; slewing about a vertical axis through the travel position: jib from " +

@@ -89,8 +89,13 @@ ReportTable analysis_table(const LiftAssessment& a, UnitSystem u) {
     t.caption = "Analysis settings (defaults applied where the job file is silent)";
     t.columns = {{"setting"}, {"value", ColumnAlign::right}, {"source"}};
     const double after = a.prediction.end_time - a.prediction.end_of_motion;
-    t.add_row({"free swing after the last move", seconds(after) + (an.duration_after ? "" : " (automatic)"),
-               source_of(job, "analysis.duration_after")});
+    if (a.prediction.comes_to_rest) {
+        t.add_row({"free swing after the last move", seconds(after) + (an.duration_after ? "" : " (automatic)"),
+                   source_of(job, "analysis.duration_after")});
+    } else {
+        t.add_row({"simulated time (held acceleration, never at rest)", seconds(a.prediction.end_time),
+                   source_of(job, "motion.held_acceleration.duration")});
+    }
     t.add_row({"output step of the time series", seconds(an.output_step), source_of(job, "analysis.output_step")});
     t.add_row({"integrator", integrator_name(an.integrator), source_of(job, "analysis.integrator")});
     t.add_row({"relative tolerance", num(an.relative_tolerance), source_of(job, "analysis.relative_tolerance")});

@@ -206,6 +206,11 @@ std::string residual_section(const LiftAssessment& a, UnitSystem u) {
     const SimulationResult& s = p.simulation;
     std::string out = heading("Residual swing after the last move");
     const double window = p.end_time - s.residual_from;
+    if (!p.comes_to_rest) {
+        out += wrap("The support never comes to rest (an acceleration held to the end of the simulation), so "
+                    "there is no residual swing: NOT CHECKED.", "  ", "  ");
+        return out;
+    }
     if (!(window > 0)) {
         out += wrap("No free swing after the last move was simulated, so no residual swing was "
                     "measured.", "  ", "  ");
@@ -295,7 +300,8 @@ std::string checks_section(const LiftAssessment& a, UnitSystem u) {
         for (const CheckResult& c : a.checks) {
             if (!c.utilisation_basis.empty()) out += wrap(c.name + ": " + c.utilisation_basis, "    ", "      ");
         }
-        out += wrap("The taut checks fail only at slack (100 %); they have no CAUTION band. Values are "
+        out += wrap("The taut checks fail at slack (100 %) and are a CAUTION from the same " +
+                        percent(a.job.limits.caution_fraction) + " of tension lost. Values are "
                     "rounded to 4 significant digits here; the JSON and CSV keep full precision. NOT "
                     "CHECKED: the check could not be made and is not a pass.",
                     "  ", "  ");

@@ -234,8 +234,8 @@ void run_pipeline(const plumb::Job& job, bool keep_time_series) {
     const plumb::ModelDescription model = plumb::describe_lift_model(job);
     if (!model.modes) return;  // the fuzzer's jobs use the rigid model, which has modes
     const plumb::SwingModes& modes = *model.modes;
-    const double end = plumb::SupportMotion::from_spec(job.motion).end_of_motion() +
-                       job.analysis.duration_after.value_or(plumb::automatic_duration_after(model.modes));
+    const double end =
+        plumb::simulated_end_time(job, plumb::SupportMotion::from_spec(job.motion).end_of_motion(), model.modes);
     if (plumb::fast_mode_cycles(modes, end) > fuzz_cycle_budget) return;
     if (keep_time_series && end / job.analysis.output_step > 2e4) keep_time_series = false;
     ++stats.simulated;
