@@ -26,6 +26,7 @@
 #include "input/input_file.hpp"
 #include "input/input_text.hpp"
 #include "input/key_suggestions.hpp"
+#include "input/move_duration.hpp"
 #include "input/speed_history.hpp"
 #include "input/yaml_marks.hpp"
 #include "plumb/errors.hpp"
@@ -424,13 +425,7 @@ std::vector<Move> read_move_list(const Section& s, const Entry& list) {
         const YAML::Mark mark = item.Mark().is_null() ? moves->mark() : item.Mark();
         result.push_back(read_move(Section(s.ctx(), item, path, mark, move_keys)));
     }
-    // Upper bound of the moves' duration: coast the whole way plus both speed changes.
-    double duration = 0;
-    for (const Move& m : result) {
-        const double ramps = m.jerk ? m.acceleration / *m.jerk + m.deceleration / *m.jerk : 0.0;
-        duration += m.pause_before + std::fabs(m.distance) / m.top_speed + m.top_speed / (2 * m.acceleration) +
-                    m.top_speed / (2 * m.deceleration) + ramps;
-    }
+    const double duration = moves_duration_bound(result);
     if (duration > max_motion_duration)
         s.fail_at(*moves, "implausible motion: the moves last about " + show(duration, Dimension::time) +
                               " (more than " + show(max_motion_duration, Dimension::time) +
