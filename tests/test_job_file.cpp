@@ -217,8 +217,8 @@ TEST_CASE("optional keys left out take their documented defaults", "[job_file]")
     CHECK(job.limits.caution_fraction == 0.9);
     CHECK_FALSE(job.analysis.duration_after.has_value());
     CHECK(job.analysis.output_step == 0.05);
-    CHECK(job.analysis.relative_tolerance == 1e-8);
-    CHECK(job.analysis.absolute_tolerance == 1e-10);
+    CHECK(job.analysis.relative_tolerance == 1e-7);
+    CHECK(job.analysis.absolute_tolerance == 1e-9);
     CHECK(job.analysis.integrator == plumb::IntegratorMethod::runge_kutta);
 }
 
