@@ -64,7 +64,7 @@ int main(int argc, char** argv) {
     }
     const int cases = argc > 2 ? std::atoi(argv[2]) : 10000;
     const int side = std::max(2, static_cast<int>(std::lround(std::sqrt(static_cast<double>(cases)))));
-    std::printf("Threads (10,000-case grid, 60 s each):\n");
+    std::printf("Threads (%d-case grid, 60 s each):\n", side * side);
     const Run one = sweep(argv[1], side, side, 60, 1);
     const Run two = sweep(argv[1], side, side, 60, 2);
     std::printf("  per core on 1 thread: %.0f cases/s of CPU; on 2 threads: %.0f cases/s of CPU per core\n",

@@ -849,3 +849,17 @@ TEST_CASE("an implausible move distance or motion duration asks to check the uni
     CHECK_THAT(error_of(full_with("distance: 12 m\n      top_speed: 40 m/min", "distance: 1500 m\n      top_speed: 3 m/min")),
                Contains("motion.moves: implausible motion: the moves last about"));
 }
+
+TEST_CASE("a job naming a CVODE integrator keeps the tighter default tolerances", "[job_file]") {
+    // docs/job-file.md: 1e-8 and 1e-10 with cvode-adams or cvode-bdf, 1e-7 and
+    // 1e-9 with runge-kutta; a tolerance the file gives is kept either way.
+    const Job bdf = parse_job(minimal_job + "analysis:\n  integrator: cvode-bdf\n", "job.yaml");
+    CHECK(bdf.analysis.relative_tolerance == 1e-8);
+    CHECK(bdf.analysis.absolute_tolerance == 1e-10);
+    const Job given = parse_job(minimal_job + "analysis:\n  integrator: cvode-adams\n  relative_tolerance: 1e-6\n",
+                                "job.yaml");
+    CHECK(given.analysis.relative_tolerance == 1e-6);
+    CHECK(given.analysis.absolute_tolerance == 1e-10);
+    const Job rk = parse_job(minimal_job + "analysis:\n  integrator: runge-kutta\n", "job.yaml");
+    CHECK(rk.analysis.relative_tolerance == 1e-7);
+}
