@@ -217,8 +217,8 @@ TEST_CASE("optional keys left out take their documented defaults", "[job_file]")
     CHECK(job.limits.caution_fraction == 0.9);
     CHECK_FALSE(job.analysis.duration_after.has_value());
     CHECK(job.analysis.output_step == 0.05);
-    CHECK(job.analysis.relative_tolerance == 1e-8);
-    CHECK(job.analysis.absolute_tolerance == 1e-10);
+    CHECK(job.analysis.relative_tolerance == 1e-7);
+    CHECK(job.analysis.absolute_tolerance == 1e-9);
     CHECK(job.analysis.integrator == plumb::IntegratorMethod::runge_kutta);
 }
 
@@ -848,4 +848,18 @@ TEST_CASE("an implausible move distance or motion duration asks to check the uni
     // 1500 m at 3 m/min is 8.3 h of travel.
     CHECK_THAT(error_of(full_with("distance: 12 m\n      top_speed: 40 m/min", "distance: 1500 m\n      top_speed: 3 m/min")),
                Contains("motion.moves: implausible motion: the moves last about"));
+}
+
+TEST_CASE("a job naming a CVODE integrator keeps the tighter default tolerances", "[job_file]") {
+    // docs/job-file.md: 1e-8 and 1e-10 with cvode-adams or cvode-bdf, 1e-7 and
+    // 1e-9 with runge-kutta; a tolerance the file gives is kept either way.
+    const Job bdf = parse_job(minimal_job + "analysis:\n  integrator: cvode-bdf\n", "job.yaml");
+    CHECK(bdf.analysis.relative_tolerance == 1e-8);
+    CHECK(bdf.analysis.absolute_tolerance == 1e-10);
+    const Job given = parse_job(minimal_job + "analysis:\n  integrator: cvode-adams\n  relative_tolerance: 1e-6\n",
+                                "job.yaml");
+    CHECK(given.analysis.relative_tolerance == 1e-6);
+    CHECK(given.analysis.absolute_tolerance == 1e-10);
+    const Job rk = parse_job(minimal_job + "analysis:\n  integrator: runge-kutta\n", "job.yaml");
+    CHECK(rk.analysis.relative_tolerance == 1e-7);
 }

@@ -125,6 +125,9 @@ std::vector<CheckResult> run_checks(const Job& job, const LiftPrediction& predic
 
 // The whole job: predict with the watch levels of its limits, then check.
 LiftAssessment assess_lift(const Job& job, bool keep_time_series);
+// The same in a simulation workspace kept by the caller (one per thread), so
+// that the many runs of a sweep reuse its buffers.
+LiftAssessment assess_lift(const Job& job, bool keep_time_series, SimulationWorkspace& workspace);
 
 // The worst verdict of the checks made; NOT CHECKED does not raise it (the
 // outputs state how many checks were not made beside it).

@@ -151,7 +151,7 @@ struct Limits {
 };
 
 enum class IntegratorMethod {
-    runge_kutta,  // Fehlberg 7(8) on a fixed-size state with dense output: fastest for the rigid model
+    runge_kutta,  // Prince-Dormand 8(7) on a fixed-size state with dense output: fastest for the rigid model
     cvode_adams,  // SUNDIALS CVODE, Adams-Moulton
     cvode_bdf,    // SUNDIALS CVODE, BDF (stiff)
 };
@@ -183,11 +183,17 @@ struct LiftOff {
     double slack_length = 0;  // m, >= 0: how far the hook rises before the rigging takes load
 };
 
+inline constexpr double cvode_default_relative_tolerance = 1e-8;
+inline constexpr double cvode_default_absolute_tolerance = 1e-10;
+
 struct AnalysisSettings {
     std::optional<double> duration_after;  // s of free swing after the last move; none: automatic
     double output_step = 0.05;             // s, spacing of the CSV time series
-    double relative_tolerance = 1e-8;
-    double absolute_tolerance = 1e-10;     // rad and rad/s
+    // The Runge-Kutta pair's defaults: peak errors stay within about 1e-7 of
+    // each record on the demo cases (docs/benchmark.md, "Default tolerance").
+    // A job file that names a CVODE integrator gets the cvode_default_* ones.
+    double relative_tolerance = 1e-7;
+    double absolute_tolerance = 1e-9;      // rad and rad/s
     IntegratorMethod integrator = IntegratorMethod::runge_kutta;  // elastic model: cvode_bdf unless given
     SwingModelChoice model = SwingModelChoice::rigid;
 };

@@ -3,10 +3,15 @@
 // count, shardable for a batch scheduler's job array. See docs/sweep.md.
 #pragma once
 
+#include <atomic>
 #include <cstddef>
 #include <functional>
+#include <memory>
+#include <mutex>
 #include <string>
 #include <vector>
+
+#include "plumb/job.hpp"
 
 namespace plumb {
 
@@ -52,10 +57,49 @@ struct SweepResult {
 };
 
 // Run the grid's cases that belong to shard on `threads` threads (each case
-// a full assess_lift of the job text with the varied values set). progress
+// a full assess_lift of the job with the varied values set; see JobCases). progress
 // (may be empty) is called from the calling thread with cases done so far.
 SweepResult run_sweep(const std::string& job_path, const std::vector<VariedField>& fields, SweepShard shard,
                       int threads, const std::function<void(std::size_t done, std::size_t total)>& progress);
+
+class SimulationWorkspace;
+
+// The cases of a sweep or scatter: case k is the job file with keys set to
+// values_of(indices[k]) (job-file text), read exactly as if written in the
+// file. The base job is parsed once and each distinct value of each key once;
+// a case's Job is the base with those numbers set, or, where the parser might
+// judge the whole differently (docs/sweep.md), the case's text parsed whole.
+// parse_every_case: always the latter (the tests compare both).
+class JobCases {
+public:
+    JobCases(const std::string& job_path, std::vector<std::string> keys, std::vector<std::size_t> indices,
+             std::function<std::vector<std::string>(std::size_t)> values_of, bool parse_every_case = false);
+    ~JobCases();
+    JobCases(const JobCases&) = delete;
+    JobCases& operator=(const JobCases&) = delete;
+    std::size_t size() const;
+    // Whether every case is parsed whole from its text (parse_every_case, a
+    // key outside the table of plain numbers, or values per key nearly one per case).
+    bool parses_every_case() const;
+    // The job of a case (values as from values_of); throws InputError as the parser would.
+    Job case_job(const std::vector<std::string>& values) const;
+    // Case k checked in the caller's workspace. The first case run fills
+    // shared.check_names and shared.assumptions (under names_mutex); the others
+    // report their checks in that order.
+    SweepCaseResult run(std::size_t k, SimulationWorkspace& workspace, SweepResult& shared,
+                        std::mutex& names_mutex) const;
+
+private:
+    struct Plan;
+    std::unique_ptr<Plan> plan_;
+};
+
+// One thread's share of a run (or one MPI rank's, on each of its threads):
+// takes case numbers k from next until none is left, runs each in one
+// workspace of its own and stores it in result.cases[k] (sized by the
+// caller), counting done. Results do not depend on which thread ran a case.
+void run_job_case_queue(const JobCases& cases, std::atomic<std::size_t>& next, std::atomic<std::size_t>& done,
+                        SweepResult& result, std::mutex& names_mutex);
 
 // The general runner under sweeps and scatter: case indices[k] is the job
 // file with keys set to values_of(indices[k]) (job-file text), results in

@@ -1,8 +1,13 @@
-// Sweeps. Each case is the job file's YAML with the varied keys set to their
-// values as text ("0.125 m/s^2") and parsed again by the job-file parser, so
-// a varied value is read, unit-checked and validated exactly as if written in
-// the file. Cases run on a pool of threads and land in a vector by index: the
-// order and the numbers do not depend on the thread count.
+// Sweeps. A case is the job file with the varied keys set to their values as
+// text ("0.125 m/s^2"), read exactly as if written in the file: the job-file
+// parser reads each distinct value of each key once (with the other keys as in
+// the file) and the case's Job is the parsed base Job with those numbers set
+// (JobCases). A case the parser might judge differently as a whole (a value it
+// refused, a key outside the table of plain numbers, a rule across fields the
+// combination could break) is parsed whole from its text instead, as every
+// case once was. Cases run on a pool of threads, one simulation workspace per
+// thread, and land in a vector by index: the order and the numbers do not
+// depend on the thread count.
 #include "plumb/sweep.hpp"
 
 #include <cmath>
@@ -24,7 +29,10 @@
 #include "plumb/errors.hpp"
 #include "plumb/job_file.hpp"
 #include "plumb/report.hpp"
+#include "plumb/simulation.hpp"
+#include "input/input_bounds.hpp"
 #include "input/input_file.hpp"
+#include "input/move_duration.hpp"
 
 namespace plumb {
 namespace {
@@ -90,21 +98,186 @@ std::vector<const QuantitySpec*> peak_quantities() {
 
 }  // namespace
 
-SweepCaseResult run_job_case(const std::string& job_text, const std::string& job_path, const std::string& folder,
-                             const std::vector<std::string>& keys, std::vector<std::string> values,
-                             std::size_t index, SweepResult& shared, std::mutex& names_mutex) {
-    std::vector<std::string>& check_names = shared.check_names;
-    SweepCaseResult r;
-    r.index = index;
-    r.values = std::move(values);
-    YAML::Node root = YAML::Load(job_text);
-    for (std::size_t f = 0; f < keys.size(); ++f) node_at(root, keys[f]) = r.values[f];
+namespace {
+
+// The number a varied key names in a Job, for the keys a case may set in the
+// parsed job (plain numbers that no other field is read from), and the field
+// the parser fills from it when the file leaves that one out (a move's
+// deceleration defaults to its acceleration). Other keys: none.
+struct JobNumber {
+    double* value = nullptr;
+    double* follower = nullptr;
+};
+
+double* given(std::optional<double>& v) { return v ? &*v : nullptr; }
+
+JobNumber move_number(Move& m, const std::string& name) {
+    if (name == "distance") return {&m.distance};
+    if (name == "top_speed") return {&m.top_speed};
+    if (name == "acceleration") return {&m.acceleration, &m.deceleration};
+    if (name == "deceleration") return {&m.deceleration};
+    if (name == "pause_before") return {&m.pause_before};
+    if (name == "jerk") return {given(m.jerk)};
+    return {};
+}
+
+JobNumber job_number(Job& job, const std::string& key) {
+    const std::vector<std::string> parts = split(key, '.');
+    if (parts.size() == 3 && parts[0] == "motion") {
+        const std::size_t bracket = parts[1].find('[');
+        const std::string list = parts[1].substr(0, bracket);
+        std::vector<Move>* moves = list == "moves"         ? &job.motion.moves
+                                   : list == "y_moves"     ? &job.motion.y_moves
+                                   : list == "hoist_moves" ? &job.motion.hoist_moves
+                                                           : nullptr;
+        if (moves == nullptr || bracket == std::string::npos) return {};
+        const long index = std::atol(parts[1].c_str() + bracket + 1);
+        if (index < 1 || static_cast<std::size_t>(index) > moves->size()) return {};
+        return move_number((*moves)[static_cast<std::size_t>(index - 1)], parts[2]);
+    }
+    if (parts.size() != 2) return {};
+    const std::string& section = parts[0];
+    const std::string& name = parts[1];
+    const std::map<std::string, double*> plain = {
+        {"motion.emergency_deceleration", given(job.motion.emergency_deceleration)},
+        {"hoist.rope_length", &job.hoist.rope_length},
+        {"hoist.rated_load", &job.hoist.rated_load},
+        {"hoist.rope_wll", given(job.hoist.rope_wll)},
+        {"hoist.rope_minimum_breaking_load", given(job.hoist.rope_minimum_breaking_load)},
+        {"hoist.sheave_efficiency", &job.hoist.sheave_efficiency},
+        {"hook_block.mass", &job.hook_block.mass},
+        {"rigging.length", &job.rigging.length},
+        {"rigging.leg_wll", given(job.rigging.leg_wll)},
+        {"load.mass", &job.load.mass},
+        {"load.radius_of_gyration", &job.load.radius_of_gyration},
+        {"load.initial_angle", &job.load.initial_angle},
+        {"load.initial_rate", &job.load.initial_rate},
+        {"environment.gravity", &job.environment.gravity},
+        {"environment.wind_speed", &job.environment.wind_speed},
+        {"environment.wind_direction", &job.environment.wind_direction},
+        {"environment.gust_peak", &job.environment.gust_peak},
+        {"environment.gust_start", &job.environment.gust_start},
+        {"environment.gust_duration", &job.environment.gust_duration},
+        {"analysis.duration_after", given(job.analysis.duration_after)},
+    };
+    const auto at = plain.find(section + "." + name);
+    return at == plain.end() ? JobNumber{} : JobNumber{at->second};
+}
+
+// Whether a job built from separately read values might break one of the
+// parser's rules across fields (docs/job-file.md): then the case is parsed whole.
+bool may_break_a_rule_across_fields(const Job& job) {
+    const Hoist& h = job.hoist;
+    if (h.rope_wll && h.rope_minimum_breaking_load && !(*h.rope_minimum_breaking_load > *h.rope_wll)) return true;
+    if (!(job.hook_block.mass + job.load.mass <= input::max_total_mass)) return true;
+    for (const std::vector<Move>* moves : {&job.motion.moves, &job.motion.y_moves, &job.motion.hoist_moves}) {
+        if (!(input::moves_duration_bound(*moves) <= input::max_motion_duration)) return true;
+    }
+    return !job.motion.hoist_moves.empty();  // the rope length along the hoist moves: the parser's to judge
+}
+
+// The job text with the keys set to the values (job-file text).
+std::string job_text_with(const YAML::Node& original, const std::vector<std::string>& keys,
+                          const std::vector<std::string>& values) {
+    YAML::Node root = YAML::Clone(original);
+    for (std::size_t f = 0; f < keys.size(); ++f) node_at(root, keys[f]) = values[f];
     YAML::Emitter out;
     out << root;
+    return out.c_str();
+}
+
+}  // namespace
+
+// How the cases of one sweep are read: the base job parsed once and every
+// distinct value of every key read once by the parser.
+struct JobCases::Plan {
+    std::string job_path, folder;
+    YAML::Node original;
+    std::vector<std::string> keys;
+    std::vector<std::size_t> indices;
+    std::function<std::vector<std::string>(std::size_t)> values_of;
+    std::optional<Job> base;  // none: every case is parsed whole
+    // Per key, the SI number the parser read for each value text; none where
+    // it refused the value (that case is parsed whole, for its message).
+    std::vector<std::map<std::string, std::optional<double>>> numbers;
+    // Per key, the follower's number for each value text, where it differs from the base's.
+    std::vector<std::map<std::string, std::optional<double>>> followers;
+};
+
+JobCases::JobCases(const std::string& job_path, std::vector<std::string> keys, std::vector<std::size_t> indices,
+                   std::function<std::vector<std::string>(std::size_t)> values_of, bool parse_every_case)
+    : plan_(std::make_unique<Plan>()) {
+    Plan& p = *plan_;
+    const std::string parent = std::filesystem::path(job_path).parent_path().string();
+    p.job_path = job_path;
+    p.folder = parent.empty() ? "." : parent;
+    p.original = YAML::Load(input::read_input_file(job_path, 1 << 20, "job file"));
+    p.keys = std::move(keys);
+    p.indices = std::move(indices);
+    p.values_of = std::move(values_of);
+    if (parse_every_case || p.indices.empty()) return;
+    // Distinct values per key; a key with a value per case (sampled inputs)
+    // gains nothing from reading its values apart.
+    std::vector<std::map<std::string, std::optional<double>>> numbers(p.keys.size()), followers(p.keys.size());
+    for (std::size_t index : p.indices) {
+        const std::vector<std::string> values = p.values_of(index);
+        for (std::size_t f = 0; f < p.keys.size(); ++f) numbers[f].emplace(values[f], std::nullopt);
+    }
+    for (const auto& n : numbers)
+        if (2 * n.size() > p.indices.size()) return;
+    // The base: the file's own values, and the first case's for keys the file leaves out.
+    std::vector<std::string> base_values = p.values_of(p.indices.front());
+    for (std::size_t f = 0; f < p.keys.size(); ++f) {
+        const YAML::Node node = node_at(YAML::Clone(p.original), p.keys[f]);
+        if (node.IsDefined() && !node.IsNull()) base_values[f] = node.Scalar();
+    }
     try {
-        const LiftAssessment a = assess_lift(parse_job(out.c_str(), job_path, folder), false);
+        p.base = parse_job(job_text_with(p.original, p.keys, base_values), p.job_path, p.folder);
+    } catch (const InputError&) {
+        return;  // parse every case whole
+    }
+    Job& base = *p.base;
+    for (std::size_t f = 0; f < p.keys.size(); ++f) {
+        const JobNumber in_base = job_number(base, p.keys[f]);
+        if (in_base.value == nullptr) {
+            p.base.reset();  // a key outside the table: every case is parsed whole
+            return;
+        }
+        for (auto& [text, number] : numbers[f]) {
+            std::vector<std::string> values = base_values;
+            values[f] = text;
+            try {
+                Job alone = parse_job(job_text_with(p.original, p.keys, values), p.job_path, p.folder);
+                const JobNumber read = job_number(alone, p.keys[f]);
+                if (read.value == nullptr) continue;
+                number = *read.value;
+                if (read.follower != nullptr && *read.follower != *in_base.follower)
+                    followers[f].emplace(text, *read.follower);
+            } catch (const InputError&) {
+            }
+        }
+    }
+    p.numbers = std::move(numbers);
+    p.followers = std::move(followers);
+}
+
+JobCases::~JobCases() = default;
+
+std::size_t JobCases::size() const { return plan_->indices.size(); }
+
+bool JobCases::parses_every_case() const { return !plan_->base; }
+
+SweepCaseResult JobCases::run(std::size_t k, SimulationWorkspace& workspace, SweepResult& shared,
+                              std::mutex& names_mutex) const {
+    const Plan& p = *plan_;
+    SweepCaseResult r;
+    r.index = p.indices[k];
+    r.values = p.values_of(r.index);
+    try {
+        const LiftAssessment a = assess_lift(case_job(r.values), false, workspace);
         r.overall = a.prediction.valid_until() ? "FAIL" : verdict_word(a.overall);
         for (const QuantitySpec* q : peak_quantities()) r.peaks.push_back(a.prediction.peak(q->id).value);
+        std::vector<std::string>& check_names = shared.check_names;
         std::lock_guard lock(names_mutex);
         if (check_names.empty()) {
             for (const CheckResult& c : a.checks) check_names.push_back(c.name);
@@ -124,6 +297,35 @@ SweepCaseResult run_job_case(const std::string& job_text, const std::string& job
         r.error = e.what();
     }
     return r;
+}
+
+Job JobCases::case_job(const std::vector<std::string>& values) const {
+    const Plan& p = *plan_;
+    if (p.base) {
+        Job job = *p.base;
+        bool whole = false;
+        // Followers first, so that a varied key wins over a field filled from another.
+        for (std::size_t f = 0; f < p.keys.size() && !whole; ++f) {
+            const auto follower = p.followers[f].find(values[f]);
+            if (follower != p.followers[f].end()) *job_number(job, p.keys[f]).follower = *follower->second;
+        }
+        for (std::size_t f = 0; f < p.keys.size() && !whole; ++f) {
+            const auto number = p.numbers[f].find(values[f]);
+            whole = number == p.numbers[f].end() || !number->second;
+            if (!whole) *job_number(job, p.keys[f]).value = *number->second;
+        }
+        if (!whole && !may_break_a_rule_across_fields(job)) return job;
+    }
+    return parse_job(job_text_with(p.original, p.keys, values), p.job_path, p.folder);
+}
+
+void run_job_case_queue(const JobCases& cases, std::atomic<std::size_t>& next, std::atomic<std::size_t>& done,
+                        SweepResult& result, std::mutex& names_mutex) {
+    SimulationWorkspace workspace;
+    for (std::size_t k = next++; k < cases.size(); k = next++) {
+        result.cases[k] = cases.run(k, workspace, result, names_mutex);
+        ++done;
+    }
 }
 
 namespace {
@@ -191,24 +393,15 @@ SweepResult run_job_cases(const std::string& job_path, const std::vector<std::st
                           const std::vector<std::size_t>& indices,
                           const std::function<std::vector<std::string>(std::size_t)>& values_of, int threads,
                           const std::function<void(std::size_t, std::size_t)>& progress) {
-    const std::string job_text = input::read_input_file(job_path, 1 << 20, "job file");
-    const std::string parent = std::filesystem::path(job_path).parent_path().string();
-    const std::string folder = parent.empty() ? "." : parent;
+    const JobCases cases(job_path, keys, indices, values_of);
     SweepResult result;
     std::mutex names_mutex;
     result.cases.resize(indices.size());
     std::atomic<std::size_t> next{0}, done{0};
-    auto one = [&](std::size_t k) {
-        result.cases[k] = run_job_case(job_text, job_path, folder, keys, values_of(indices[k]), indices[k], result,
-                                       names_mutex);
-    };
     std::vector<std::exception_ptr> failures(static_cast<std::size_t>(std::max(1, threads)));
     auto worker = [&](std::size_t id) {
         try {
-            for (std::size_t k = next++; k < indices.size(); k = next++) {
-                one(k);
-                ++done;
-            }
+            run_job_case_queue(cases, next, done, result, names_mutex);
         } catch (...) {
             failures[id] = std::current_exception();
             next = indices.size();
@@ -216,7 +409,8 @@ SweepResult run_job_cases(const std::string& job_path, const std::vector<std::st
     };
     // The first case alone, so that the check names are known before any other case reads them.
     if (!indices.empty()) {
-        one(0);
+        SimulationWorkspace workspace;
+        result.cases[0] = cases.run(0, workspace, result, names_mutex);
         next = 1;
         done = 1;
     }

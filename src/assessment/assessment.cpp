@@ -303,8 +303,11 @@ ModelDescription describe_for_lift(const SwingModel& model) {
 
 ModelDescription describe_lift_model(const Job& job) { return describe_for_lift(*make_swing_model(job)); }
 
-LiftPrediction predict_lift(const Job& job, const SwingModel& model, const ModelDescription& description,
-                            const std::vector<WatchLevel>& watch, double output_step) {
+namespace {
+
+// predict_lift() in a workspace kept by the caller, or in one of its own.
+LiftPrediction predict_in(const Job& job, const SwingModel& model, const ModelDescription& description,
+                          const std::vector<WatchLevel>& watch, double output_step, SimulationWorkspace* workspace) {
     LiftPrediction p;
     p.model = description;
     const double end_of_motion = model.trajectory().end_of_motion();  // every channel, not only x
@@ -322,7 +325,7 @@ LiftPrediction predict_lift(const Job& job, const SwingModel& model, const Model
     request.watch = watch;
     if (!job.obstacles.zones.empty()) request.obstacles = &job.obstacles;
     request.lift_off_window = description.vertical_bounce_period.value_or(0.0);
-    p.simulation = simulate(model, request);
+    p.simulation = workspace != nullptr ? simulate(model, request, *workspace) : simulate(model, request);
 
     p.parts_of_line = job.hoist.parts_of_line;
     p.sling_leg_factor = sling_leg_factor(job);
@@ -332,6 +335,12 @@ LiftPrediction predict_lift(const Job& job, const SwingModel& model, const Model
     return p;
 }
 
+}  // namespace
+
+LiftPrediction predict_lift(const Job& job, const SwingModel& model, const ModelDescription& description,
+                            const std::vector<WatchLevel>& watch, double output_step) {
+    return predict_in(job, model, description, watch, output_step, nullptr);
+}
 
 namespace {
 
@@ -639,20 +648,28 @@ std::vector<std::string> input_notices(const Job& job, const LiftPrediction& p) 
     return notices;
 }
 
-}  // namespace
 
-LiftAssessment assess_lift(const Job& job, bool keep_time_series) {
+LiftAssessment assess_in(const Job& job, bool keep_time_series, SimulationWorkspace* workspace) {
     LiftAssessment a;
     a.job = job;
     const std::unique_ptr<SwingModel> model = make_swing_model(job);
     const ModelDescription description = describe_for_lift(*model);
     const std::vector<WatchLevel> watch = watch_levels(job, description.static_loads);
-    a.prediction = predict_lift(job, *model, description, watch, keep_time_series ? job.analysis.output_step : 0.0);
+    a.prediction = predict_in(job, *model, description, watch, keep_time_series ? job.analysis.output_step : 0.0,
+                              workspace);
     a.checks = run_checks(job, a.prediction, watch);
     a.overall = overall_verdict(a.checks);
     a.notices = input_notices(job, a.prediction);
     a.run = record_run(job);
     return a;
+}
+
+}  // namespace
+
+LiftAssessment assess_lift(const Job& job, bool keep_time_series) { return assess_in(job, keep_time_series, nullptr); }
+
+LiftAssessment assess_lift(const Job& job, bool keep_time_series, SimulationWorkspace& workspace) {
+    return assess_in(job, keep_time_series, &workspace);
 }
 
 }  // namespace plumb

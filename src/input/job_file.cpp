@@ -27,6 +27,7 @@
 #include "input/input_text.hpp"
 #include "input/key_suggestions.hpp"
 #include "input/obstacles_section.hpp"
+#include "input/move_duration.hpp"
 #include "input/speed_history.hpp"
 #include "input/yaml_marks.hpp"
 #include "plumb/errors.hpp"
@@ -456,13 +457,7 @@ std::vector<Move> read_move_list(const Section& s, const Entry& list, const Move
         const YAML::Mark mark = item.Mark().is_null() ? moves->mark() : item.Mark();
         result.push_back(read_move(Section(s.ctx(), item, path, mark, move_keys), kind));
     }
-    // Upper bound of the moves' duration: coast the whole way plus both speed changes.
-    double duration = 0;
-    for (const Move& m : result) {
-        const double ramps = m.jerk ? m.acceleration / *m.jerk + m.deceleration / *m.jerk : 0.0;
-        duration += m.pause_before + std::fabs(m.distance) / m.top_speed + m.top_speed / (2 * m.acceleration) +
-                    m.top_speed / (2 * m.deceleration) + ramps;
-    }
+    const double duration = moves_duration_bound(result);
     if (duration > max_motion_duration)
         s.fail_at(*moves, "implausible motion: the moves last about " + show(duration, Dimension::time) +
                               " (more than " + show(max_motion_duration, Dimension::time) +
@@ -856,6 +851,15 @@ void read_analysis(const Section& s, AnalysisSettings& a) {
 
 // ---------------------------------------------------------------- model and rope
 
+// CVODE keeps the tighter default tolerances: BDF's phase error on an undamped
+// swing grows with the time simulated (docs/validation.md, "BDF at the default
+// tolerances"). The Runge-Kutta default is AnalysisSettings' (docs/benchmark.md).
+void apply_cvode_default_tolerances(const Section& s, AnalysisSettings& a) {
+    if (a.integrator == IntegratorMethod::runge_kutta) return;
+    if (s.find("relative_tolerance") == nullptr) a.relative_tolerance = cvode_default_relative_tolerance;
+    if (s.find("absolute_tolerance") == nullptr) a.absolute_tolerance = cvode_default_absolute_tolerance;
+}
+
 void read_model(const Section& s, AnalysisSettings& a) {
     const Entry* e = s.find("model");
     if (e == nullptr) return;
@@ -1014,6 +1018,7 @@ Job build_job(Context ctx, const YAML::Node& root) {
         if (const Entry* after = analysis.find("duration_after"); after && job.motion.held_acceleration)
             analysis.fail_at_key(*after, "a held acceleration never ends, so there is no free swing after it: the "
                                          "simulated time is motion.held_acceleration.duration; remove this key");
+        apply_cvode_default_tolerances(analysis, job.analysis);
     }
     const Entry* rope = top.find("rope");
     if (job.analysis.model == SwingModelChoice::elastic) {

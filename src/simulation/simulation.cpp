@@ -1,20 +1,69 @@
 // Run a model and record what the checks need. Peaks come from each step's
-// interpolant: sampled at a few points, then refined by Brent's method, so a
-// peak between output samples is not missed or flattened.
+// interpolant: sampled at both ends and the midpoint, then refined by Brent's
+// method wherever a bound on the quantity's curvature says an extremum between
+// the samples could beat the record (docs/benchmark.md, "Peak finder"), so a
+// peak between samples is not missed or flattened.
 #include "plumb/simulation.hpp"
 
 #include <array>
 #include <boost/math/tools/minima.hpp>
 #include <cmath>
 #include <limits>
+#include <optional>
+#include <utility>
 
 namespace plumb {
 
 namespace {
 
-// Sample intervals per step; with the step sizes the error control picks, a
-// quantity has at most one extremum between neighbouring samples.
-constexpr int samples_per_step = 4;
+// Sample intervals per step: both ends and the midpoint (docs/benchmark.md,
+// "Peak finder", gives the argument that no extremum is missed).
+constexpr int samples_per_step = 2;
+
+// The factor on the estimated third derivative of a quantity that bounds it
+// over a step (see third_derivative_bound()).
+constexpr double derivative_safety = 4;
+
+// Refinement that could raise a record by less than this share of it is skipped:
+// it changes no printed digit.
+constexpr double negligible_gain = 1e-10;
+
+// No bound on a quantity's third derivative (no history yet): search_span()
+// then searches every part of the step.
+constexpr double no_bound = std::numeric_limits<double>::infinity();
+
+// Where, between samples j and j+1 of a step of length h, a quantity could
+// exceed `bar` (beyond a negligible gain): the part to search, in sample units
+// (s = 0, 1, 2 at the step's samples v), or none. From the parabola P through
+// the three samples and a bound m3 on the quantity's third derivative over the
+// step: the error e = Q - P vanishes at the three samples, so (Rolle) e'
+// vanishes once in each half and e'' once in the step, whence |e''| <= m3 h,
+// |e'| <= m3 h^2 and |e| <= m3 |(t-a)(t-m)(t-b)| / 6 <= m3 h^3 / (72 sqrt 3).
+// Where |P'| exceeds m3 h^2 with one sign over the part, Q is monotone there
+// and its largest value is a sample, already counted; elsewhere Q <= P + |e|.
+std::optional<std::pair<double, double>> search_span(const std::array<double, samples_per_step + 1>& v, int j,
+                                                     double m3, double h, double bar) {
+    const double bend = v[0] - 2 * v[1] + v[2];  // P(s) = v1 + g (s - 1) + bend/2 (s - 1)^2
+    const double g = 0.5 * (v[2] - v[0]);
+    const double slope_from = g + bend * (j - 1), slope_to = slope_from + bend;  // dP/ds at the part's ends
+    const double slack = m3 * h * h * (h / 2);  // m3 h^2 per second, per sample unit (h/2 seconds)
+    if ((slope_from > slack && slope_to > slack) || (slope_from < -slack && slope_to < -slack)) return std::nullopt;
+    const double error = m3 * h * h * h / (72 * std::sqrt(3.0));
+    const double margin = v[1] + error - (bar + negligible_gain * std::fabs(bar));  // P + |e| - bar at s = 1
+    double from = j, to = j + 1;
+    if (bend < 0) {
+        // P + |e| >= bar between the roots of bend/2 u^2 + g u + margin (u = s - 1).
+        const double discriminant = g * g - 2 * bend * margin;
+        if (!(discriminant >= 0)) return std::nullopt;
+        const double root = std::sqrt(discriminant);
+        from = std::max(from, 1 + (-g + root) / bend);
+        to = std::min(to, 1 + (-g - root) / bend);
+        if (!(from <= to)) return std::nullopt;
+    } else if (!(std::max(v[j], v[j + 1]) + error > bar + negligible_gain * std::fabs(bar))) {
+        return std::nullopt;  // P is convex: on the part it stays below its ends
+    }
+    return std::pair{from, to};
+}
 
 // The extreme (largest, or smallest when seeking the minimum) of one quantity.
 struct ExtremeTracker {
@@ -72,6 +121,10 @@ struct SimulationWorkspace::Buffers {
     std::array<Observation, samples_per_step + 1> samples{};
     PerQuantity<SampleValues> values{};  // of the recorded quantities at the samples
     std::vector<SampleValues> zone_values;  // clearance to each keep-out zone at the samples
+    PerQuantity<double> third_bound{};     // the bound on |third derivative| over this step
+    PerQuantity<double> curvature{};       // second derivative estimated on the previous step ...
+    PerQuantity<double> curvature_time{};  // ... at this time (its midpoint)
+    PerQuantity<double> third{};           // |third derivative| estimated between the previous two steps
     Buffers() { add_trackers(whole_run, residual, lift_off); }
 };
 
@@ -88,6 +141,8 @@ public:
              SimulationResult& result, Buffers& buffers)
         : model_(model), request_(request), residual_from_(residual_from), result_(result),
           x_(buffers.x), times_(buffers.times), samples_(buffers.samples), values_(buffers.values),
+          third_bound_(buffers.third_bound), curvature_(buffers.curvature), curvature_time_(buffers.curvature_time),
+          third_(buffers.third),
           recorded_(buffers.recorded), whole_run_(buffers.whole_run), residual_(buffers.residual),
           lift_off_(buffers.lift_off), snatch_(buffers.snatch), zone_values_(buffers.zone_values) {
         x_.resize(model.state_size());
@@ -121,8 +176,10 @@ public:
             samples_[j] = observe(times_[j]);
         }
         times_[0] = step.t_begin;
+        h_ = step.t_end - step.t_begin;
         for (Quantity q : recorded_) {
             for (int j = 0; j <= samples_per_step; ++j) values_[q][j] = quantity_value(samples_[j], q);
+            third_bound_[q] = third_derivative_bound(q, h_, !step_seen_);
         }
         step_seen_ = true;
         // While the load rests on the ground the ropes carry less than its
@@ -163,6 +220,35 @@ private:
         const QuantitySpec& spec = quantity_spec(q);
         if ((spec.records & ~unsigned{Record::series}) != 0) return values_[q][j];
         return quantity_value(samples_[j], q);
+    }
+
+    // The time at s sample intervals into this step.
+    double time_at(double s) const { return s >= samples_per_step ? times_.back() : times_[0] + s * (h_ / samples_per_step); }
+
+    // A bound on |third derivative| of q over this step (for search_span()):
+    // derivative_safety times the larger of the two latest estimates from the
+    // change of the sampled second derivative between neighbouring steps (the
+    // second difference of a step's samples is Q'' at some point of that
+    // step). The first step has none: it is searched whole.
+    double third_derivative_bound(Quantity q, double h, bool first) {
+        const SampleValues& v = values_[q];
+        const double curvature = (v[0] - 2 * v[1] + v[2]) * 4 / (h * h);
+        const double at = times_[1];
+        const double third = first ? std::numeric_limits<double>::infinity()
+                                   : std::fabs(curvature - curvature_[q]) / (at - curvature_time_[q]);
+        const double m3 = derivative_safety * std::max(third, third_[q]);
+        third_[q] = first ? 0.0 : third;
+        curvature_[q] = curvature;
+        curvature_time_[q] = at;
+        return std::isnan(m3) ? std::numeric_limits<double>::infinity() : m3;
+    }
+
+    // The largest score of q on [lo, hi] (Brent's method on the interpolant).
+    Peak refine(const ExtremeTracker& tracker, double lo, double hi) {
+        auto negative_score = [&](double t) { return -tracker.score(value_at(t, tracker.quantity)); };
+        const auto [t, f] =
+            boost::math::tools::brent_find_minima(negative_score, lo, hi, std::numeric_limits<double>::digits / 2);
+        return {-f, t};
     }
 
     void update(ExtremeTracker& tracker) {
@@ -207,6 +293,7 @@ private:
     void update_record(const ExtremeTracker& tracker, Peak& record, bool& seen) {
         const double so_far = seen ? tracker.score(record.value) : -std::numeric_limits<double>::infinity();
         const Peak candidate = step_extreme(values_[tracker.quantity], tracker.minimum, so_far,
+                                            third_bound_[tracker.quantity],
                                             [&](double t) { return value_at(t, tracker.quantity); });
         if (!seen || tracker.score(candidate.value) > so_far) {
             record = candidate;
@@ -229,7 +316,9 @@ private:
             const KeepOutZone& zone = obstacles.zones[k];
             ClosestApproach& record = result_.closest_approach[k];
             const double so_far = -record.at.clearance;
-            const Peak candidate = step_extreme(zone_values_[k], true, so_far, [&](double t) {
+            // No curvature history per zone: the bound is infinite and both
+            // halves of the step are searched (only jobs with zones pay it).
+            const Peak candidate = step_extreme(zone_values_[k], true, so_far, no_bound, [&](double t) {
                 return approach(load_outline(observe(t), obstacles), zone).clearance;
             });
             if (-candidate.value > so_far) {
@@ -241,55 +330,50 @@ private:
 
     // The extreme (largest, or smallest when minimum) of one quantity in this
     // step, from its values at the samples. so_far is the record's score
-    // (larger is better; -infinity: none yet); value_at reads the quantity
-    // from the interpolant.
+    // (larger is better; -infinity: none yet); m3 bounds the quantity's third
+    // derivative over the step (search_span()); value_at reads the quantity
+    // from the interpolant. Searches between two samples only where the bound
+    // says an extremum there could beat both the record and the best sample.
     template <class ValueAt>
-    Peak step_extreme(const SampleValues& values, bool minimum, double so_far, ValueAt value_at) const {
-        auto score_at = [&](int j) { return minimum ? -values[j] : values[j]; };
-        auto natural = [&](double score) { return minimum ? -score : score; };
+    Peak step_extreme(const SampleValues& values, bool minimum, double so_far, double m3, ValueAt value_at) const {
+        SampleValues scores;
+        for (int j = 0; j <= samples_per_step; ++j) scores[j] = minimum ? -values[j] : values[j];
         int best = 0;
         for (int j = 1; j <= samples_per_step; ++j) {
-            if (score_at(j) > score_at(best)) best = j;
+            if (scores[j] > scores[best]) best = j;
         }
-        const double sampled = score_at(best);
-        Peak candidate{natural(sampled), times_[best]};
-        // A parabola through the best sample and its neighbours estimates how far
-        // the true extremum between samples rises above it. Refine (Brent's method
-        // on the interpolant) only where that could beat the record; the margin
-        // covers the parabola's own error, which is of higher order.
-        const int mid = std::clamp(best, 1, samples_per_step - 1);
-        const double f0 = score_at(mid - 1), f1 = score_at(mid), f2 = score_at(mid + 1);
-        const double curvature = f0 - 2 * f1 + f2;  // negative at a maximum
-        double lo = times_[best], hi = times_[best];
-        double estimate = sampled;
-        if (curvature < 0) {
-            const double vertex = 0.5 * (f0 - f2) / curvature;  // in samples from mid
-            const double vertex_value = f1 - 0.125 * (f2 - f0) * (f2 - f0) / curvature;
-            // The extremum lies between the best sample and a neighbour on the
-            // side of the vertex (for a best sample at an end of the step, only
-            // the part inside this step: the next step searches the rest).
-            const double at = mid + vertex;
-            if (at > best && best < samples_per_step) hi = times_[best + 1];
-            if (at < best && best > 0) lo = times_[best - 1];
-            if (hi > lo) estimate = std::max(sampled, vertex_value);
-        }
-        if (hi > lo && estimate + 0.5 * (estimate - sampled) + 1e-12 * std::fabs(so_far) >= so_far) {
+        Peak candidate{scores[best], times_[best]};  // as a score until the end
+        for (int j = 0; j < samples_per_step; ++j) {
+            const double bar = std::max(so_far, candidate.value);
+            const auto span = search_span(scores, j, m3, h_, bar);
+            if (!span) continue;
             auto negative_score = [&](double t) { return minimum ? value_at(t) : -value_at(t); };
-            const auto [t, f] = boost::math::tools::brent_find_minima(negative_score, lo, hi,
+            const auto [t, f] = boost::math::tools::brent_find_minima(negative_score, time_at(span->first),
+                                                                      time_at(span->second),
                                                                       std::numeric_limits<double>::digits / 2);
-            if (-f > sampled) candidate = {natural(-f), t};
+            if (-f > candidate.value) candidate = {-f, t};
         }
-        return candidate;
+        return {minimum ? -candidate.value : candidate.value, candidate.time};
     }
 
-    // First time in this step the watched level is reached, found by bisection
-    // on the interpolant between the samples that bracket it.
+    // First time in this step the watched level is reached: between the samples
+    // that bracket it, or, where no sample reaches it, at an extremum between
+    // two samples that the bound says might; then by bisection.
     std::optional<double> crossing(const WatchLevel& w) {
         auto reached = [&](double value) { return w.below ? value <= w.level : value >= w.level; };
-        for (int j = 0; j <= samples_per_step; ++j) {
-            if (!reached(sample_value(j, w.quantity))) continue;
-            if (j == 0) return times_[0];
+        if (reached(sample_value(0, w.quantity))) return times_[0];
+        const ExtremeTracker toward{w.quantity, w.below, nullptr};  // scores rise toward the level
+        std::array<double, samples_per_step + 1> scores;
+        for (int j = 0; j <= samples_per_step; ++j) scores[j] = toward.score(sample_value(j, w.quantity));
+        for (int j = 1; j <= samples_per_step; ++j) {
             double before = times_[j - 1], after = times_[j];
+            if (!reached(sample_value(j, w.quantity))) {
+                const auto span = search_span(scores, j - 1, third_bound_[w.quantity], h_, toward.score(w.level));
+                if (!span) continue;
+                const Peak extremum = refine(toward, time_at(span->first), time_at(span->second));
+                if (!reached(toward.score(extremum.value))) continue;
+                after = extremum.time;
+            }
             for (int i = 0; i < 60 && after - before > 1e-12; ++i) {
                 const double mid = (before + after) / 2;
                 (reached(value_at(mid, w.quantity)) ? after : before) = mid;
@@ -317,6 +401,10 @@ private:
     std::array<double, samples_per_step + 1>& times_;
     std::array<Observation, samples_per_step + 1>& samples_;
     PerQuantity<SampleValues>& values_;
+    PerQuantity<double>& third_bound_;
+    PerQuantity<double>& curvature_;
+    PerQuantity<double>& curvature_time_;
+    PerQuantity<double>& third_;
     const std::vector<Quantity>& recorded_;
     std::vector<ExtremeTracker>& whole_run_;
     std::vector<ExtremeTracker>& residual_;
@@ -324,6 +412,7 @@ private:
     std::array<SnatchTracker, member_count>& snatch_;
     std::vector<SampleValues>& zone_values_;  // clearance to each keep-out zone at the samples
     const DenseStep* step_ = nullptr;
+    double h_ = 0;  // this step's length
     bool step_seen_ = false;
     bool step_seen_before_ = false;  // a step before this one was recorded
     Regime regime_;  // of the current step

@@ -10,7 +10,7 @@
 
 namespace plumb::detail {
 
-// Runge-Kutta-Fehlberg 7(8) from Boost.Odeint on a fixed-size state, with a
+// The Prince-Dormand 8(7) pair (prince_dormand.hpp) on a fixed-size state, with a
 // quintic Hermite interpolant built from positions, rates and accelerations at
 // both ends of each step (exact for a second-order system's structure), and
 // event location on that interpolant.

@@ -3,18 +3,16 @@
 // operations cost more than the whole right-hand side (docs/benchmark.md).
 #include <array>
 #include <boost/math/tools/toms748_solve.hpp>
-#include <boost/numeric/odeint.hpp>
 #include <cmath>
 #include <limits>
 #include <string>
 
 #include "integrators_impl.hpp"
 #include "plumb/errors.hpp"
+#include "plumb/prince_dormand.hpp"
 
 namespace plumb::detail {
 namespace {
-
-namespace odeint = boost::numeric::odeint;
 
 template <std::size_t Dof>
 using State = std::array<double, 2 * Dof>;
@@ -49,36 +47,6 @@ public:
             x[Dof + i] = (d0 * q0 + d1 * v0 + d2 * a0 + d3 * q1 + d4 * v1 + d5 * a1) / h;
         }
     }
-};
-
-// The error norm of Odeint's default checker (largest over the components of
-// |err_i| / (atol_i + rtol (|x_i| + |h| |f_i|))), with one absolute tolerance
-// per component; a non-finite error estimate is an infinite error, so a trial
-// step that produced a non-finite state is rejected and retried smaller.
-template <std::size_t N>
-class ComponentErrorChecker {
-public:
-    using value_type = double;
-    using algebra_type = odeint::array_algebra;
-    using operations_type = odeint::default_operations;
-
-    ComponentErrorChecker(const std::array<double, N>& absolute, double relative)
-        : absolute_(absolute), relative_(relative) {}
-
-    template <class State, class Deriv, class Err, class Time>
-    double error(algebra_type&, const State& x_old, const Deriv& dxdt_old, Err& x_err, Time dt) const {
-        const double step = std::abs(dt);
-        double worst = 0;
-        for (std::size_t i = 0; i < N; ++i) {
-            x_err[i] = std::abs(x_err[i]) / (absolute_[i] + relative_ * (std::abs(x_old[i]) + step * std::abs(dxdt_old[i])));
-            if (!(x_err[i] <= worst)) worst = std::isnan(x_err[i]) ? infinity : x_err[i];
-        }
-        return worst;
-    }
-
-private:
-    std::array<double, N> absolute_;
-    double relative_;
 };
 
 template <std::size_t N>
@@ -129,13 +97,10 @@ class FixedSizeRun {
 public:
     using Vector = State<Dof>;
     static constexpr std::size_t N = 2 * Dof;
-    using Stepper = odeint::runge_kutta_fehlberg78<Vector>;
-    using Controlled = odeint::controlled_runge_kutta<Stepper, ComponentErrorChecker<N>>;
 
     FixedSizeRun(const DynamicSystem& system, const IntegratorSettings& settings,
                  const std::vector<double>& absolute_tolerance, StepSink& sink)
-        : system_(system), settings_(settings), sink_(sink), events_(system.event_count()),
-          controlled_(make_checker(absolute_tolerance, settings.relative_tolerance)) {
+        : system_(system), settings_(settings), sink_(sink), events_(system.event_count()) {
         std::copy(absolute_tolerance.begin(), absolute_tolerance.end(), atol_.begin());
         g_.resize(events_);
         side_.resize(events_);
@@ -156,12 +121,6 @@ public:
     double time_reached() const { return t_; }
 
 private:
-    static ComponentErrorChecker<N> make_checker(const std::vector<double>& atol, double rtol) {
-        std::array<double, N> a{};
-        std::copy(atol.begin(), atol.end(), a.begin());
-        return ComponentErrorChecker<N>(a, rtol);
-    }
-
     void rhs(const Vector& x, Vector& dxdt, double t) {
         ++stats_.rhs_evaluations;
         system_.derivatives(t, regime_, x, dxdt);
@@ -188,30 +147,33 @@ private:
                 throw NumericalError(step_cap_message(settings_.max_steps), t_);
             }
             const bool last = dt >= t_stop - t_;
-            double h = std::min({dt, t_stop - t_, settings_.max_step});
-            Vector x_new = x_;
-            double t_new = t_;
+            const double h = std::min({dt, t_stop - t_, settings_.max_step});
             auto f = [this](const Vector& x, Vector& dxdt, double t) { rhs(x, dxdt, t); };
-            const bool accepted = controlled_.try_step(f, x_new, f_, t_new, h) == odeint::success;
-            if (!accepted || !all_finite(x_new)) {
+            prince_dormand::step<N>(f, t_, x_, f_, h, trial_);
+            // A trial step that produced a non-finite state has an infinite error.
+            const double error = all_finite(trial_.x)
+                                     ? prince_dormand::error_norm<N>(trial_, x_, atol_, settings_.relative_tolerance)
+                                     : infinity;
+            if (!(error <= 1)) {
                 ++stats_.rejected_steps;
                 if (++failures_in_a_row > 200 || h < 1e-14 * std::max(1.0, std::fabs(t_))) {
                     throw NumericalError("step size became too small (the equations may be singular)", t_);
                 }
-                // A failed step has h shrunk by the controller; a finite error
-                // with a non-finite state (not expected) is shrunk here.
-                dt = accepted ? (t_new - t_) * 0.2 : h;
+                dt = prince_dormand::next_step(h, error, true);
                 continue;
             }
+            const bool after_rejection = failures_in_a_row > 0;
             failures_in_a_row = 0;
+            double t_new = t_ + h;
             if (last || t_new > t_stop) t_new = t_stop;  // land on the break exactly
             ++stats_.steps;
             // Keep the controller's suggestion unless this was a step shortened to hit the break.
-            if (!last) dt = h;
+            const double suggested = prince_dormand::next_step(h, error, after_rejection);
+            if (!last) dt = suggested;
             step_.span_begin = step_.t_begin = t_;
             step_.x0 = x_;
             step_.f0 = f_;
-            x_ = x_new;
+            x_ = trial_.x;
             t_ = t_new;
             rhs(x_, f_, t_);
             step_.span_end = step_.t_end = t_;
@@ -331,7 +293,7 @@ private:
     StepSink& sink_;
     const std::size_t events_;
     std::array<double, N> atol_{};
-    Controlled controlled_;
+    prince_dormand::Trial<N> trial_{};
     IntegrationStats stats_;
     Regime regime_;
     double t_ = 0;
