@@ -31,7 +31,32 @@ double read_number(const YAML::Node& spec, const char* name, const std::string& 
 
 }  // namespace
 
+namespace {
+
+std::vector<UncertainInput> read_scatter_section(const std::string& job_path);
+
+}  // namespace
+
+// The scatter section as data. A section of the wrong shape (a list, a bare
+// value where a distribution's map belongs) is an input error located in the
+// job file, never a parser library's message.
 std::vector<UncertainInput> read_uncertain_inputs(const std::string& job_path) {
+    try {
+        return read_scatter_section(job_path);
+    } catch (const YAML::Exception& e) {
+        SourceLocation where;
+        where.file = job_path;
+        where.line = e.mark.is_null() ? 0 : e.mark.line + 1;
+        where.column = e.mark.is_null() ? 0 : e.mark.column + 1;
+        where.key_path = "scatter";
+        throw InputError(where, "the scatter section must map each uncertain key to {distribution: ..., "
+                                "and its numbers with units} (docs/scatter.md); " + e.msg);
+    }
+}
+
+namespace {
+
+std::vector<UncertainInput> read_scatter_section(const std::string& job_path) {
     const YAML::Node root = YAML::Load(input::read_input_file(job_path, 1 << 20, "job file"));
     const YAML::Node section = root["scatter"];
     if (!section || !section.IsMap() || section.size() == 0)
@@ -41,6 +66,8 @@ std::vector<UncertainInput> read_uncertain_inputs(const std::string& job_path) {
         UncertainInput in;
         in.key = item.first.as<std::string>();
         const YAML::Node spec = item.second;
+        if (!spec.IsMap())
+            throw YAML::RepresentationException(spec.Mark(), "the value of '" + in.key + "' is not a map");
         const std::string kind = spec["distribution"] ? spec["distribution"].as<std::string>() : "";
         const bool has_min = static_cast<bool>(spec["min"]), has_max = static_cast<bool>(spec["max"]);
         if (kind == "uniform") {
@@ -62,6 +89,8 @@ std::vector<UncertainInput> read_uncertain_inputs(const std::string& job_path) {
     }
     return inputs;
 }
+
+}  // namespace
 
 double sample_percentile(std::vector<double> values, double p) {
     if (values.empty()) return std::nan("");
