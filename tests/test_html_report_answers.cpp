@@ -287,3 +287,15 @@ TEST_CASE("the scatter report gives every check's failure probability with both 
     CHECK(doc.values("//table[starts-with(caption, 'Uncertain inputs')]/tbody/tr/td[1]") ==
           std::vector<std::string>{"load.mass", "motion.moves[1].acceleration", "hoist.rope_length"});
 }
+
+TEST_CASE("the scatter report with subset simulation lists each named check's estimate with its method") {
+    plumb_test::ScratchFolder folder;
+    const std::string job = coil_with_scatter(folder);
+    const XmlDocument doc =
+        report_from("scatter " + quoted(job) +
+                        " --samples 20 --threads 1 --subset --subset-checks load_angle,hoist_load --subset-level-samples 100",
+                    folder.file("scatter.html"), 1);
+    const std::string table = "//table[caption='Probability of failing each check by subset simulation']";
+    CHECK(doc.values(table + "/tbody/tr/td[1]") == std::vector<std::string>{"load_angle", "hoist_load"});
+    CHECK(contains(plumb_test::read_text(folder.file("scatter.html")), "Method: subset simulation (Au &amp; Beck"));
+}

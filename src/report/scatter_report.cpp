@@ -75,6 +75,24 @@ ReportTable probabilities_table(const ScatterResult& r) {
     return t;
 }
 
+// Subset simulation's estimates (plumb scatter --subset), one row a check.
+ReportTable small_probabilities_table(const ScatterResult& r) {
+    ReportTable t;
+    t.caption = "Probability of failing each check by subset simulation";
+    t.columns = {{"check"}, {"probability", ColumnAlign::right}, {"coefficient of variation", ColumnAlign::right},
+                 {"levels", ColumnAlign::right}, {"model runs", ColumnAlign::right}, {"remark"}};
+    for (const SmallProbability& p : r.small) {
+        const FailureEstimate& e = p.estimate;
+        std::string remark = e.flat ? "not estimated: the margin does not change with the inputs"
+                             : !e.reached_failure ? "stopped at the level limit: the probability is an upper estimate"
+                                                  : "";
+        if (p.refused > 0) remark += (remark.empty() ? "" : "; ") + std::to_string(p.refused) + " runs refused, counted as failing";
+        t.add_row({p.check, e.flat ? "-" : num(e.probability), e.flat ? "-" : num(e.coefficient_of_variation),
+                   std::to_string(e.levels), std::to_string(e.evaluations), remark});
+    }
+    return t;
+}
+
 ReportTable peaks_table(const ScatterResult& r, UnitSystem u) {
     ReportTable t;
     t.caption = "Peaks over the samples (percentiles by linear interpolation of the sorted sample)";
@@ -193,6 +211,15 @@ std::string format_scatter_report(const LiftAssessment& base, const ScatterResul
     }
     doc.paragraph("With no failure among n samples the probability is only known to lie below the upper end of "
                   "its interval (about 3.7 / n for Clopper-Pearson): plain sampling cannot show a smaller one.");
+    if (!result.small.empty()) {
+        doc.paragraph("Method: subset simulation (Au & Beck, Probabilistic Engineering Mechanics 16, 2001), " +
+                      std::to_string(result.settings.level_samples) +
+                      " samples a level, level probability 0.1, modified Metropolis chains in the standard normal "
+                      "space of the inputs; the limit state is each check's unused share of its limit. The "
+                      "coefficient of variation is Au & Beck's estimate, which tends to understate the scatter. " +
+                      std::to_string(result.small_model_runs) + " distinct model runs in all.");
+        doc.table(small_probabilities_table(result));
+    }
     doc.table(checks_over_cases_table(result.cases, "samples"));
 
     doc.begin_section("Distributions of the peaks", SectionStart::new_page);
