@@ -98,13 +98,28 @@ struct Trial {
     std::array<double, N> error3;
 };
 
-// The weighted sum of the first `Count` stages with weights w (a row of a, or
-// b, e5), component i; the zero weights are dropped at compile time.
-template <const std::array<double, stages>& w, std::size_t Count, std::size_t N>
+// A set of stage weights as a type (a row of a, or b, e5), so that the sums
+// below see every weight as a constant. (A reference to a row of a as a
+// template argument would do, but not every compiler of the supported
+// toolchains accepts a subobject there.)
+template <std::size_t Row>
+struct CouplingRow {
+    static constexpr std::array<double, stages> value = a[Row];
+};
+struct EighthOrderWeights {
+    static constexpr std::array<double, stages> value = b;
+};
+struct FifthOrderEstimator {
+    static constexpr std::array<double, stages> value = e5;
+};
+
+// The weighted sum of the first `Count` stages with the weights W::value,
+// component i; the zero weights are dropped at compile time.
+template <class W, std::size_t Count, std::size_t N>
 inline double weighted(const std::array<std::array<double, N>, stages>& k, std::size_t i) {
     return [&]<std::size_t... J>(std::index_sequence<J...>) {
         double sum = 0;
-        ((w[J] != 0 ? (sum += w[J] * k[J][i], 0) : 0), ...);
+        ((W::value[J] != 0 ? (sum += W::value[J] * k[J][i], 0) : 0), ...);
         return sum;
     }(std::make_index_sequence<Count>{});
 }
@@ -114,7 +129,7 @@ template <std::size_t S, std::size_t N, class Rhs>
 inline void stage(Rhs& rhs, double t, const std::array<double, N>& x, double h,
                   std::array<std::array<double, N>, stages>& k) {
     std::array<double, N> y;
-    for (std::size_t i = 0; i < N; ++i) y[i] = x[i] + h * weighted<a[S], S>(k, i);
+    for (std::size_t i = 0; i < N; ++i) y[i] = x[i] + h * weighted<CouplingRow<S>, S>(k, i);
     rhs(y, k[S], t + c[S] * h);
 }
 
@@ -128,9 +143,9 @@ void step(Rhs& rhs, double t, const std::array<double, N>& x, const std::array<d
         (stage<S + 1>(rhs, t, x, h, k), ...);
     }(std::make_index_sequence<stages - 1>{});
     for (std::size_t i = 0; i < N; ++i) {
-        const double high = weighted<b, stages>(k, i);
+        const double high = weighted<EighthOrderWeights, stages>(k, i);
         out.x[i] = x[i] + h * high;
-        out.error5[i] = h * weighted<e5, stages>(k, i);
+        out.error5[i] = h * weighted<FifthOrderEstimator, stages>(k, i);
         out.error3[i] = h * (high - bhh1 * k[0][i] - bhh9 * k[8][i] - bhh12 * k[11][i]);
     }
 }
