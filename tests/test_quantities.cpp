@@ -93,6 +93,34 @@ TEST_CASE("a slewing lift also lists the radial and tangential swing components"
     CHECK(slewing_only == 5);  // the slew angle; radial and tangential, hoist rope and rigging
 }
 
+TEST_CASE("a 3-D lift on the travel axes also lists the swing components along x and along y", "[quantities]") {
+    check_outputs_follow_the_table("workshop-two-axis-hoist.yaml");
+    const Job job = demo_job("workshop-two-axis-hoist.yaml");
+    std::size_t travel_axes_only = 0;
+    for (const QuantitySpec& q : quantity_table()) {
+        if (q.scope != QuantityScope::travel_axes) continue;
+        ++travel_axes_only;
+        INFO(q.key);
+        CHECK(reported_for(q, job));
+        CHECK_FALSE(reported_for(q, demo_job()));                        // the rigid planar model
+        CHECK_FALSE(reported_for(q, demo_job("tower-slew-wind.yaml")));  // slewing: radial and tangential instead
+    }
+    CHECK(travel_axes_only == 4);  // along x and along y, hoist rope and rigging
+}
+
+TEST_CASE("the swing components along x and along y are the member's angles in those vertical planes", "[quantities]") {
+    // Geometry [derived]: a member with the vector (3, 4, -12) leans atan(3/12)
+    // in the x-z plane and atan(4/12) in the y-z plane.
+    Observation o;
+    o.member(MemberId::hoist_rope) = Member::along({3, 4, -12}, {0, 0, 0});
+    o.member(MemberId::rigging) = Member::along({-1, 2, -5}, {0, 0, 0});
+    CHECK_THAT(quantity_value(o, Quantity::hook_rope_angle_along_x), Catch::Matchers::WithinAbs(std::atan(3.0 / 12), 1e-15));
+    CHECK_THAT(quantity_value(o, Quantity::hook_rope_angle_along_y), Catch::Matchers::WithinAbs(std::atan(4.0 / 12), 1e-15));
+    // The read value is signed; the records track its magnitude.
+    CHECK_THAT(series_value(o, Quantity::load_angle_along_x, LiftScales{}), Catch::Matchers::WithinAbs(-std::atan(1.0 / 5), 1e-15));
+    CHECK_THAT(series_value(o, Quantity::load_angle_along_y, LiftScales{}), Catch::Matchers::WithinAbs(std::atan(2.0 / 5), 1e-15));
+}
+
 TEST_CASE("a member built from its vector has the angle and rate of the planar member", "[quantities]") {
     // Geometry [derived]: a member of length L at angle th from the vertical
     // has the vector L (sin th, 0, -cos th) and its rate L w (cos th, 0, sin th).

@@ -32,6 +32,10 @@ enum class Quantity : std::size_t {
     hook_rope_tangential_angle,
     load_radial_angle,
     load_tangential_angle,
+    hook_rope_angle_along_x,
+    hook_rope_angle_along_y,
+    load_angle_along_x,
+    load_angle_along_y,
     hook_x,
     hook_z,
     load_x,
@@ -47,7 +51,7 @@ enum class Quantity : std::size_t {
     rigging_dynamic_factor,
     clearance,
 };
-inline constexpr std::size_t quantity_count = 26;
+inline constexpr std::size_t quantity_count = 30;
 
 constexpr std::size_t index_of(Quantity q) { return static_cast<std::size_t>(q); }
 
@@ -86,9 +90,11 @@ struct LiftScales {
 // the reeving and the drum are not counted. e = 1 gives W / n.
 double lead_line_factor(int parts_of_line, double sheave_efficiency);
 
-// Which lifts report a quantity: every lift, or only one whose support slews
-// (the swing's components relative to the jib).
-enum class QuantityScope { every_lift, slewing };
+// Which lifts report a quantity: every lift; only one whose support slews
+// (the swing's components relative to the jib); or only a 3-D lift on the
+// travel axes (the elastic model without slewing: the swing's components in
+// the vertical planes along x and along y, i.e. along and across the travel).
+enum class QuantityScope { every_lift, slewing, travel_axes };
 
 // Which static load a simulated quantity is measured against, if any.
 enum class StaticReference { none, hoist_rope_tension, rigging_tension };
@@ -121,9 +127,13 @@ const QuantitySpec& quantity_spec(Quantity q);
 inline bool has_record(const QuantitySpec& s, Record r) { return (s.records & r) != 0; }
 inline bool is_derived(const QuantitySpec& s) { return s.read == nullptr; }
 // Whether the outputs of this job list the quantity: slewing-only quantities
-// for a slewing lift, per-zone ones (the clearance) for a job with keep-out zones.
+// for a slewing lift, travel-axis components for a 3-D lift without slewing,
+// per-zone ones (the clearance) for a job with keep-out zones.
 inline bool reported_for(const QuantitySpec& s, const Job& job) {
     if (s.scope == QuantityScope::slewing && !job.motion.slew.has_value()) return false;
+    if (s.scope == QuantityScope::travel_axes &&
+        (job.analysis.model != SwingModelChoice::elastic || job.motion.slew.has_value()))
+        return false;
     return !has_record(s, Record::per_zone) || !job.obstacles.zones.empty();
 }
 

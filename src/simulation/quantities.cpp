@@ -46,6 +46,21 @@ constexpr QuantitySpec slewing_component(Quantity id, const char* key, const cha
             StaticReference::none, false, 0, QuantityScope::slewing};
 }
 
+// A member's lean from the vertical resolved on the ground axes: its angle in
+// the vertical plane along x (along_y false) or along y, positive toward +x
+// or +y. For a lift on the travel axes, along and across the travel.
+double axis_component(const Member& m, bool along_y) {
+    const Eigen::Vector3d& v = m.vector();
+    return std::atan2(along_y ? v.y() : v.x(), -v.z());
+}
+
+// A swing component that only a 3-D lift on the travel axes reports.
+constexpr QuantitySpec travel_axis_component(Quantity id, const char* key, const char* words,
+                                             double (*read)(const Observation&)) {
+    return {id, key, words, "", Dimension::angle, series | peak, read, true, no_base, nullptr,
+            StaticReference::none, false, 0, QuantityScope::travel_axes};
+}
+
 // A quantity derived value by value from another.
 constexpr QuantitySpec derived(Quantity id, const char* key, const char* words, Dimension d, unsigned records,
                                Quantity base, double (*derive)(double, const LiftScales&), bool static_in_json) {
@@ -84,6 +99,16 @@ constexpr QuantitySpec table[] = {
     slewing_component(Quantity::load_tangential_angle, "load_tangential_angle",
                       "load angle, tangential (across the jib)",
                       [](const Observation& o) { return jib_component(rigging(o), o.support, true); }),
+    travel_axis_component(Quantity::hook_rope_angle_along_x, "hook_rope_angle_along_x",
+                          "hook rope angle, in the x-z plane (along x)",
+                          [](const Observation& o) { return axis_component(rope(o), false); }),
+    travel_axis_component(Quantity::hook_rope_angle_along_y, "hook_rope_angle_along_y",
+                          "hook rope angle, in the y-z plane (along y)",
+                          [](const Observation& o) { return axis_component(rope(o), true); }),
+    travel_axis_component(Quantity::load_angle_along_x, "load_angle_along_x", "load angle, in the x-z plane (along x)",
+                          [](const Observation& o) { return axis_component(rigging(o), false); }),
+    travel_axis_component(Quantity::load_angle_along_y, "load_angle_along_y", "load angle, in the y-z plane (along y)",
+                          [](const Observation& o) { return axis_component(rigging(o), true); }),
     simulated(Quantity::hook_x, "hook_x", "", "", Dimension::length, series,
               [](const Observation& o) { return o.hook_block.x(); }),
     simulated(Quantity::hook_z, "hook_z", "", "", Dimension::length, series,
