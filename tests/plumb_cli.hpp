@@ -47,6 +47,22 @@ inline RunResult run_plumb(const std::string& arguments) {
 
 inline bool contains(const std::string& text, const std::string& part) { return text.find(part) != std::string::npos; }
 
+// Runs of spaces and line ends as one space, so that wrapped text compares.
+inline std::string squeeze(const std::string& text) {
+    std::string out;
+    bool space = false;
+    for (char c : text) {
+        if (c == ' ' || c == '\n') {
+            space = true;
+            continue;
+        }
+        if (space && !out.empty()) out += ' ';
+        space = false;
+        out += c;
+    }
+    return out;
+}
+
 // text with the first occurrence of from replaced by to; the test fails if from is not in it.
 inline std::string replaced(std::string text, const std::string& from, const std::string& to) {
     const std::size_t at = text.find(from);

@@ -19,9 +19,12 @@
 #include "plumb/report_facts.hpp"
 #include "plumb/text_layout.hpp"
 #include "plumb_cli.hpp"
+#include "coil_report_inputs.hpp"
 #include "xml_parse.hpp"
 
 using plumb_test::XmlDocument;
+using plumb_test::check_coil_inputs_echoed;
+using plumb_test::joined;
 
 namespace {
 
@@ -51,12 +54,6 @@ std::string sha256sum_of(const std::string& path) {
     char digest[65] = {};
     REQUIRE(std::fread(digest, 1, 64, pipe.get()) == 64);
     return digest;
-}
-
-std::string joined(const std::vector<std::string>& texts) {
-    std::string all;
-    for (const std::string& t : texts) all += t + "\n";
-    return all;
 }
 
 }  // namespace
@@ -142,18 +139,7 @@ TEST_CASE("the report echoes every input of the job file with its unit") {
     // The values as the job file cases/coil-transfer.yaml gives them, in the
     // report's SI units (36 m/min = 0.6 m/s; 25 t rated load; 6.5 t rope WLL).
     const XmlDocument doc(report_of("coil-transfer.yaml", 0));
-    const std::string inputs = joined(doc.values("//table[caption='Inputs as plumb read them']//td"));
-    for (const char* given : {"total travel 18 m", "peak speed 0.6 m/s", "rope length 7.5 m", "4 parts of line",
-                              "25 t at standard gravity", "mass 0.65 t", "length hook to load CG 1.6 m",
-                              "mass 14 t", "radius of gyration 0.55 m", "9.80665 m/s^2"}) {
-        INFO(given);
-        CHECK(contains(inputs, given));
-    }
-    const std::string limits = joined(doc.values("//table[caption='Limits']//td"));
-    for (const char* given : {"3 deg", "0.3 m", "0.05 m", "1.1"}) {
-        INFO(given);
-        CHECK(contains(limits, given));
-    }
+    check_coil_inputs_echoed(doc);
     // Settings the file leaves out are echoed as defaults.
     const std::string settings = joined(doc.values("//table[starts-with(caption, 'Analysis settings')]//td"));
     CHECK(contains(settings, "runge_kutta"));

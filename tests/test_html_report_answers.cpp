@@ -17,9 +17,12 @@
 #include "plumb/job_file.hpp"
 #include "plumb/report.hpp"
 #include "plumb_cli.hpp"
+#include "coil_report_inputs.hpp"
 #include "xml_parse.hpp"
 
 using plumb_test::XmlDocument;
+using plumb_test::check_coil_inputs_echoed;
+using plumb_test::joined;
 
 namespace {
 
@@ -29,12 +32,6 @@ using plumb_test::contains;
 using plumb_test::quoted;
 using plumb_test::run_plumb;
 using plumb_test::RunResult;
-
-std::string joined(const std::vector<std::string>& texts) {
-    std::string all;
-    for (const std::string& t : texts) all += t + "\n";
-    return all;
-}
 
 // A copy of a demo case with text inserted after the first line equal to `after`.
 std::string demo_with(const plumb_test::ScratchFolder& folder, const std::string& name, const std::string& after,
@@ -73,18 +70,7 @@ XmlDocument report_from(const std::string& arguments, const std::string& html, i
 // gives them (36 m/min = 0.6 m/s; 25 t rated load; 6.5 t rope WLL), the
 // cautions, the model's assumptions and the sign-off.
 void check_frame(const XmlDocument& doc, const std::string& job_path, const std::string& made_by) {
-    const std::string inputs = joined(doc.values("//table[caption='Inputs as plumb read them']//td"));
-    for (const char* given : {"total travel 18 m", "peak speed 0.6 m/s", "rope length 7.5 m", "4 parts of line",
-                              "25 t at standard gravity", "mass 0.65 t", "length hook to load CG 1.6 m",
-                              "mass 14 t", "radius of gyration 0.55 m", "9.80665 m/s^2"}) {
-        INFO(given);
-        CHECK(contains(inputs, given));
-    }
-    const std::string limits = joined(doc.values("//table[caption='Limits']//td"));
-    for (const char* given : {"3 deg", "0.3 m", "0.05 m", "1.1"}) {
-        INFO(given);
-        CHECK(contains(limits, given));
-    }
+    check_coil_inputs_echoed(doc);
     const std::vector<std::string> title_block = doc.values("//table[@class='title-block']//td");
     CHECK(std::find(title_block.begin(), title_block.end(), made_by) != title_block.end());
     CHECK(std::find(title_block.begin(), title_block.end(), "DEMO-COIL-01") != title_block.end());

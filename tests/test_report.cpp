@@ -120,23 +120,8 @@ plumb::LiftAssessment synthetic_assessment() {
     return a;
 }
 
-// The summary wraps long sentences; compare with runs of white space as one space.
-std::string squeeze(const std::string& text) {
-    std::string out;
-    bool space = false;
-    for (char c : text) {
-        if (c == ' ' || c == '\n') {
-            space = true;
-            continue;
-        }
-        if (space && !out.empty()) out += ' ';
-        space = false;
-        out += c;
-    }
-    return out;
-}
-
 using plumb_test::contains;
+using plumb_test::squeeze;
 
 // The assumptions every output states for the job's model.
 std::vector<std::string> model_assumptions() { return synthetic_assessment().prediction.model.assumptions; }

@@ -61,6 +61,7 @@ limits:
 )";
 
 using plumb_test::contains;
+using plumb_test::squeeze;
 using plumb_test::replaced;
 
 LiftAssessment assess_text(const std::string& yaml) { return assess_lift(parse_job(yaml, "verdict-test.yaml", "."), false); }
@@ -71,22 +72,6 @@ const CheckResult& check_named(const LiftAssessment& a, const std::string& name)
     }
     FAIL("no check named " << name);
     return a.checks.front();
-}
-
-// Runs of white space as one space, so that wrapped text compares.
-std::string squeeze(const std::string& text) {
-    std::string out;
-    bool space = false;
-    for (char c : text) {
-        if (c == ' ' || c == '\n') {
-            space = true;
-            continue;
-        }
-        if (space && !out.empty()) out += ' ';
-        space = false;
-        out += c;
-    }
-    return out;
 }
 
 std::string file_text(const std::string& path) {
