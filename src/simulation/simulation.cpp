@@ -6,11 +6,12 @@
 #include "plumb/simulation.hpp"
 
 #include <array>
-#include <boost/math/tools/minima.hpp>
 #include <cmath>
 #include <limits>
 #include <optional>
 #include <utility>
+
+#include "plumb/extremum_search.hpp"
 
 namespace plumb {
 
@@ -113,9 +114,13 @@ std::vector<Quantity> recorded_quantities() {
 using SampleValues = std::array<double, samples_per_step + 1>;
 
 struct SimulationWorkspace::Buffers {
+    // Every tracker the table asks for, and of them those of this run's
+    // recorded quantities (SimulationRequest::recorded).
+    std::vector<ExtremeTracker> all_whole_run, all_residual, all_lift_off;
     std::vector<ExtremeTracker> whole_run, residual, lift_off;
     std::array<SnatchTracker, member_count> snatch{};
-    std::vector<Quantity> recorded = recorded_quantities();
+    std::vector<Quantity> all_recorded = recorded_quantities();
+    std::vector<Quantity> recorded;
     std::vector<double> x, x0, breaks;
     std::array<double, samples_per_step + 1> times{};
     std::array<Observation, samples_per_step + 1> samples{};
@@ -125,7 +130,25 @@ struct SimulationWorkspace::Buffers {
     PerQuantity<double> curvature{};       // second derivative estimated on the previous step ...
     PerQuantity<double> curvature_time{};  // ... at this time (its midpoint)
     PerQuantity<double> third{};           // |third derivative| estimated between the previous two steps
-    Buffers() { add_trackers(whole_run, residual, lift_off); }
+    Buffers() { add_trackers(all_whole_run, all_residual, all_lift_off); }
+
+    // The trackers and sample values of the quantities this run records
+    // (after the first run, without allocating).
+    void select(const PerQuantity<bool>& wanted) {
+        auto keep = [&](const std::vector<ExtremeTracker>& all, std::vector<ExtremeTracker>& chosen) {
+            chosen.clear();
+            for (const ExtremeTracker& t : all) {
+                if (wanted[t.quantity]) chosen.push_back(t);
+            }
+        };
+        keep(all_whole_run, whole_run);
+        keep(all_residual, residual);
+        keep(all_lift_off, lift_off);
+        recorded.clear();
+        for (Quantity q : all_recorded) {
+            if (wanted[q]) recorded.push_back(q);
+        }
+    }
 };
 
 SimulationWorkspace::SimulationWorkspace() : buffers_(std::make_unique<Buffers>()) {}
@@ -145,6 +168,7 @@ public:
           third_(buffers.third),
           recorded_(buffers.recorded), whole_run_(buffers.whole_run), residual_(buffers.residual),
           lift_off_(buffers.lift_off), snatch_(buffers.snatch), zone_values_(buffers.zone_values) {
+        buffers.select(request.recorded);
         x_.resize(model.state_size());
         for (ExtremeTracker& t : whole_run_) t.seen = false;
         for (ExtremeTracker& t : residual_) t.seen = false;
@@ -218,7 +242,7 @@ private:
     // A quantity at sample j of this step: read once per step if it has records.
     double sample_value(int j, Quantity q) const {
         const QuantitySpec& spec = quantity_spec(q);
-        if ((spec.records & ~unsigned{Record::series}) != 0) return values_[q][j];
+        if ((spec.records & ~unsigned{Record::series}) != 0 && request_.recorded[q]) return values_[q][j];
         return quantity_value(samples_[j], q);
     }
 
@@ -243,11 +267,19 @@ private:
         return std::isnan(m3) ? std::numeric_limits<double>::infinity() : m3;
     }
 
-    // The largest score of q on [lo, hi] (Brent's method on the interpolant).
-    Peak refine(const ExtremeTracker& tracker, double lo, double hi) {
-        auto negative_score = [&](double t) { return -tracker.score(value_at(t, tracker.quantity)); };
-        const auto [t, f] =
-            boost::math::tools::brent_find_minima(negative_score, lo, hi, std::numeric_limits<double>::digits / 2);
+    // The largest score on the part `span` (in sample units) of this step:
+    // Brent's method on the interpolant, started at the vertex of the
+    // parabola through the samples' scores (extremum_search.hpp).
+    template <class Score>
+    Peak largest_score(const SampleValues& scores, std::pair<double, double> span, Score score) const {
+        const double bend = scores[0] - 2 * scores[1] + scores[2];
+        const double slope = 0.5 * (scores[2] - scores[0]);
+        const double vertex = bend < 0 ? 1 - slope / bend : (span.first + span.second) / 2;
+        std::array<KnownPoint, 3> known;
+        for (int j = 0; j <= samples_per_step; ++j) known[j] = {times_[j], -scores[j]};
+        const auto [t, f] = minimise_from([&](double at) { return -score(at); }, time_at(span.first),
+                                          time_at(span.second), time_at(std::clamp(vertex, span.first, span.second)),
+                                          known, std::numeric_limits<double>::digits / 2);
         return {-f, t};
     }
 
@@ -347,11 +379,9 @@ private:
             const double bar = std::max(so_far, candidate.value);
             const auto span = search_span(scores, j, m3, h_, bar);
             if (!span) continue;
-            auto negative_score = [&](double t) { return minimum ? value_at(t) : -value_at(t); };
-            const auto [t, f] = boost::math::tools::brent_find_minima(negative_score, time_at(span->first),
-                                                                      time_at(span->second),
-                                                                      std::numeric_limits<double>::digits / 2);
-            if (-f > candidate.value) candidate = {-f, t};
+            const Peak found =
+                largest_score(scores, *span, [&](double t) { return minimum ? -value_at(t) : value_at(t); });
+            if (found.value > candidate.value) candidate = found;
         }
         return {minimum ? -candidate.value : candidate.value, candidate.time};
     }
@@ -368,9 +398,11 @@ private:
         for (int j = 1; j <= samples_per_step; ++j) {
             double before = times_[j - 1], after = times_[j];
             if (!reached(sample_value(j, w.quantity))) {
-                const auto span = search_span(scores, j - 1, third_bound_[w.quantity], h_, toward.score(w.level));
+                const double m3 = request_.recorded[w.quantity] ? third_bound_[w.quantity] : no_bound;
+                const auto span = search_span(scores, j - 1, m3, h_, toward.score(w.level));
                 if (!span) continue;
-                const Peak extremum = refine(toward, time_at(span->first), time_at(span->second));
+                const Peak extremum = largest_score(
+                    scores, *span, [&](double t) { return toward.score(value_at(t, w.quantity)); });
                 if (!reached(toward.score(extremum.value))) continue;
                 after = extremum.time;
             }
