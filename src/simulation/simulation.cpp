@@ -66,6 +66,19 @@ std::optional<std::pair<double, double>> search_span(const std::array<double, sa
     return std::pair{from, to};
 }
 
+// Whether the quantity could exceed `bar` (beyond a negligible gain) anywhere
+// in the step: a quick test before search_span() looks at each part. The
+// parabola P through the samples rises at most |bend| / 2 above its middle
+// sample inside the step (its vertex lies in the step only when |slope| <=
+// |bend|, and then P(vertex) - v1 = slope^2 / (2 |bend|)), so P stays below
+// max(v) + |bend| / 2, and the quantity below that plus search_span()'s |e|.
+bool step_could_exceed(const std::array<double, samples_per_step + 1>& v, double m3, double h, double bar) {
+    const double bend = v[0] - 2 * v[1] + v[2];
+    const double error = m3 * h * h * h / (72 * std::sqrt(3.0));
+    const double highest = std::max({v[0], v[1], v[2]}) + std::fabs(bend) / 2 + error;
+    return !(highest <= bar + negligible_gain * std::fabs(bar));
+}
+
 // The extreme (largest, or smallest when seeking the minimum) of one quantity.
 struct ExtremeTracker {
     Quantity quantity;
@@ -375,6 +388,9 @@ private:
             if (scores[j] > scores[best]) best = j;
         }
         Peak candidate{scores[best], times_[best]};  // as a score until the end
+        if (!step_could_exceed(scores, m3, h_, std::max(so_far, candidate.value))) {
+            return {minimum ? -candidate.value : candidate.value, candidate.time};
+        }
         for (int j = 0; j < samples_per_step; ++j) {
             const double bar = std::max(so_far, candidate.value);
             const auto span = search_span(scores, j, m3, h_, bar);
@@ -395,10 +411,12 @@ private:
         const ExtremeTracker toward{w.quantity, w.below, nullptr};  // scores rise toward the level
         std::array<double, samples_per_step + 1> scores;
         for (int j = 0; j <= samples_per_step; ++j) scores[j] = toward.score(sample_value(j, w.quantity));
+        const double m3 = request_.recorded[w.quantity] ? third_bound_[w.quantity] : no_bound;
+        const bool some_sample_reaches = reached(sample_value(1, w.quantity)) || reached(sample_value(2, w.quantity));
+        if (!some_sample_reaches && !step_could_exceed(scores, m3, h_, toward.score(w.level))) return std::nullopt;
         for (int j = 1; j <= samples_per_step; ++j) {
             double before = times_[j - 1], after = times_[j];
             if (!reached(sample_value(j, w.quantity))) {
-                const double m3 = request_.recorded[w.quantity] ? third_bound_[w.quantity] : no_bound;
                 const auto span = search_span(scores, j - 1, m3, h_, toward.score(w.level));
                 if (!span) continue;
                 const Peak extremum = largest_score(
