@@ -118,7 +118,7 @@ Observation RigidPendulumModel::observe(double t, const Regime& r, std::span<con
     const double fx2 = p_.load_mass * ax2, fz2 = p_.load_mass * (az2 + g);
     const double fx1 = p_.hook_block_mass * ax1 + fx2, fz1 = p_.hook_block_mass * (az1 + g) + fz2;
     rigging.tension = -fx2 * s2 + fz2 * c2;      // along the rigging, toward the hook
-    rigging.resultant = std::hypot(fx2, fz2);
+    rigging.resultant = std::sqrt(fx2 * fx2 + fz2 * fz2);  // forces far from overflow: no need for hypot
     rope.tension = -fx1 * s1 + fz1 * c1;         // along the rope, toward the support
     // The rope is a pinned massless two-force member: its force lies along it
     // on every solution (docs/model.md, "Tensions"), so its magnitude is |T1|.
