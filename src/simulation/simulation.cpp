@@ -72,10 +72,15 @@ std::optional<std::pair<double, double>> search_span(const std::array<double, sa
 // sample inside the step (its vertex lies in the step only when |slope| <=
 // |bend|, and then P(vertex) - v1 = slope^2 / (2 |bend|)), so P stays below
 // max(v) + |bend| / 2, and the quantity below that plus search_span()'s |e|.
-bool step_could_exceed(const std::array<double, samples_per_step + 1>& v, double m3, double h, double bar) {
+//
+// step_reach() is that bound's distance beyond the samples, the same below them.
+double step_reach(const std::array<double, samples_per_step + 1>& v, double m3, double h) {
     const double bend = v[0] - 2 * v[1] + v[2];
-    const double error = m3 * h * h * h / (72 * std::sqrt(3.0));
-    const double highest = std::max({v[0], v[1], v[2]}) + std::fabs(bend) / 2 + error;
+    return std::fabs(bend) / 2 + m3 * h * h * h / (72 * std::sqrt(3.0));
+}
+
+bool step_could_exceed(const std::array<double, samples_per_step + 1>& v, double m3, double h, double bar) {
+    const double highest = std::max({v[0], v[1], v[2]}) + step_reach(v, m3, h);
     return !(highest <= bar + negligible_gain * std::fabs(bar));
 }
 
@@ -140,6 +145,7 @@ struct SimulationWorkspace::Buffers {
     PerQuantity<SampleValues> values{};  // of the recorded quantities at the samples
     std::vector<SampleValues> zone_values;  // clearance to each keep-out zone at the samples
     PerQuantity<double> third_bound{};     // the bound on |third derivative| over this step
+    PerQuantity<double> highest{}, lowest{};  // bounds of the quantity over this step (step_reach())
     PerQuantity<double> curvature{};       // second derivative estimated on the previous step ...
     PerQuantity<double> curvature_time{};  // ... at this time (its midpoint)
     PerQuantity<double> third{};           // |third derivative| estimated between the previous two steps
@@ -177,7 +183,8 @@ public:
              SimulationResult& result, Buffers& buffers)
         : model_(model), request_(request), residual_from_(residual_from), result_(result),
           x_(buffers.x), times_(buffers.times), samples_(buffers.samples), values_(buffers.values),
-          third_bound_(buffers.third_bound), curvature_(buffers.curvature), curvature_time_(buffers.curvature_time),
+          third_bound_(buffers.third_bound), highest_(buffers.highest), lowest_(buffers.lowest),
+          curvature_(buffers.curvature), curvature_time_(buffers.curvature_time),
           third_(buffers.third),
           recorded_(buffers.recorded), whole_run_(buffers.whole_run), residual_(buffers.residual),
           lift_off_(buffers.lift_off), snatch_(buffers.snatch), zone_values_(buffers.zone_values) {
@@ -217,6 +224,10 @@ public:
         for (Quantity q : recorded_) {
             for (int j = 0; j <= samples_per_step; ++j) values_[q][j] = quantity_value(samples_[j], q);
             third_bound_[q] = third_derivative_bound(q, h_, !step_seen_);
+            const SampleValues& v = values_[q];
+            const double reach = step_reach(v, third_bound_[q], h_);
+            highest_[q] = std::max({v[0], v[1], v[2]}) + reach;
+            lowest_[q] = std::min({v[0], v[1], v[2]}) - reach;
         }
         step_seen_ = true;
         // While the load rests on the ground the ropes carry less than its
@@ -337,6 +348,9 @@ private:
     // Bring a record (largest, or least, of one quantity) up to this step.
     void update_record(const ExtremeTracker& tracker, Peak& record, bool& seen) {
         const double so_far = seen ? tracker.score(record.value) : -std::numeric_limits<double>::infinity();
+        // Nothing in this step can beat the record: the common case, settled
+        // by the step's bound alone (the same answer step_extreme() would give).
+        if (seen && score_bound(tracker.quantity, tracker.minimum) <= so_far) return;
         const Peak candidate = step_extreme(values_[tracker.quantity], tracker.minimum, so_far,
                                             third_bound_[tracker.quantity],
                                             [&](double t) { return value_at(t, tracker.quantity); });
@@ -345,6 +359,10 @@ private:
             seen = true;
         }
     }
+
+    // The largest score of a recorded quantity anywhere in this step (its value,
+    // or minus it when seeking the least), by the step's bound.
+    double score_bound(Quantity q, bool minimum) const { return minimum ? -lowest_[q] : highest_[q]; }
 
     // The closest approach to each keep-out zone: the least clearance by the
     // same sampling and refinement as the table's least values, and where the
@@ -406,6 +424,9 @@ private:
     // that bracket it, or, where no sample reaches it, at an extremum between
     // two samples that the bound says might; then by bisection.
     std::optional<double> crossing(const WatchLevel& w) {
+        // The level out of reach in this step (no sample, no crest between them).
+        if (request_.recorded[w.quantity] && score_bound(w.quantity, w.below) < (w.below ? -w.level : w.level))
+            return std::nullopt;
         auto reached = [&](double value) { return w.below ? value <= w.level : value >= w.level; };
         if (reached(sample_value(0, w.quantity))) return times_[0];
         const ExtremeTracker toward{w.quantity, w.below, nullptr};  // scores rise toward the level
@@ -452,6 +473,8 @@ private:
     std::array<Observation, samples_per_step + 1>& samples_;
     PerQuantity<SampleValues>& values_;
     PerQuantity<double>& third_bound_;
+    PerQuantity<double>& highest_;
+    PerQuantity<double>& lowest_;
     PerQuantity<double>& curvature_;
     PerQuantity<double>& curvature_time_;
     PerQuantity<double>& third_;
