@@ -5,8 +5,11 @@
 // that places values into a valid job: typical values scaled over four
 // decades, extreme numbers, wrong or missing units and bad text, with and
 // without jerk, pauses, several moves or a speed-history CSV, limits and
-// analysis settings. Every job the parser accepts is simulated, checked and
-// formatted (summary, JSON, CSV).
+// analysis settings, a held acceleration, keep-out zones with the load's size,
+// and the elastic model's sections (rope data, wind, lift-off, slewing). Every
+// job the parser accepts on the rigid model is simulated, checked and
+// formatted (summary, JSON, CSV); elastic jobs are parsed only (a run takes a
+// good part of a second, too slow for a fuzzer).
 //
 // What counts as a finding: a crash, a sanitizer report, or any exception
 // other than InputError (bad input, exit 2). A NumericalError (exit 3) on a
@@ -66,10 +69,17 @@ public:
         }
         y += "job:\n  title: " + text("Fuzzed lift") + "\n";
         if (data_.ConsumeBool()) y += "  reference: " + text("FZ-1") + "\n";
+        elastic_ = data_.ConsumeIntegralInRange(0, 3) == 0;
         y += "motion:\n";
-        if (data_.ConsumeIntegralInRange(0, 3) == 0) {
+        const int motion_kind = data_.ConsumeIntegralInRange(0, 7);
+        if (motion_kind == 0) {
             y += "  speed_history: history.csv\n";
             write_history();
+        } else if (motion_kind == 1) {
+            y += "  held_acceleration:\n    acceleration: " + quantity(0.3, {"m/s^2"}) + "\n    duration: " +
+                 quantity(10, {"s"}) + "\n";
+        } else if (elastic_ && motion_kind == 2) {
+            y += slew();
         } else {
             y += "  moves:\n";
             const int moves = data_.ConsumeIntegralInRange(1, 4);
@@ -94,12 +104,27 @@ public:
             if (data_.ConsumeBool()) y += "  leg_wll: " + quantity(10, {"t", "kN"}) + "\n";
         }
         y += "load:\n  mass: " + quantity(8, {"t", "kg", "lb"}) + "\n";
-        if (data_.ConsumeBool()) y += "  radius_of_gyration: " + quantity(1, {"m"}) + "\n";
-        if (data_.ConsumeBool()) y += "  initial_angle: " + quantity(2, {"deg", "rad"}) + "\n";
-        if (data_.ConsumeBool()) y += "  initial_rate: " + quantity(1, {"deg/s", "rad/s"}) + "\n";
-        if (data_.ConsumeBool()) y += "environment:\n  gravity: " + quantity(9.81, {"m/s^2", ""}) + "\n";
-        if (data_.ConsumeBool()) y += limits();
+        const bool zones = data_.ConsumeIntegralInRange(0, 3) == 0;
+        if (zones || wild()) y += load_size();
+        // Rigid model only (the elastic model refuses them, naming the key).
+        const bool rigid_keys = !elastic_ || wild();
+        if (rigid_keys && data_.ConsumeBool()) y += "  radius_of_gyration: " + quantity(1, {"m"}) + "\n";
+        if (rigid_keys && data_.ConsumeBool()) y += "  initial_angle: " + quantity(2, {"deg", "rad"}) + "\n";
+        if (rigid_keys && data_.ConsumeBool()) y += "  initial_rate: " + quantity(1, {"deg/s", "rad/s"}) + "\n";
+        std::string environment;
+        if (data_.ConsumeBool()) environment += "  gravity: " + quantity(9.81, {"m/s^2", ""}) + "\n";
+        if (elastic_ && data_.ConsumeBool()) {
+            environment += "  wind_speed: " + quantity(8, {"m/s", "km/h"}) + "\n  wind_direction: " + quantity(90, {"deg"}) + "\n";
+            if (data_.ConsumeBool())
+                environment += "  gust_peak: " + quantity(5, {"m/s"}) + "\n  gust_start: " + quantity(5, {"s"}) +
+                               "\n  gust_duration: " + quantity(4, {"s"}) + "\n";
+        }
+        if (!environment.empty()) y += "environment:\n" + environment;
+        if (zones) y += obstacles();
+        if (data_.ConsumeBool()) y += limits(zones);
         y += analysis();
+        if (elastic_) y += rope();
+        if (elastic_ && data_.ConsumeIntegralInRange(0, 3) == 0) y += "lift_off:\n  slack_length: " + quantity(0.1, {"m"}) + "\n";
         return y;
     }
 
@@ -116,8 +141,61 @@ private:
         return m;
     }
 
-    std::string limits() {
+    std::string load_size() {
+        if (data_.ConsumeBool()) return "  size: {radius: " + quantity(0.8, {"m"}) + "}\n";
+        return "  size: {length: " + quantity(2, {"m"}) + ", width: " + quantity(1.2, {"m"}) +
+               ", height: " + quantity(1, {"m", "ft"}) + "}\n";
+    }
+
+    std::string obstacles() {
+        std::string o = "obstacles:\n  suspension_height: " + quantity(20, {"m"}) + "\n  zones:\n";
+        const int zones = wild() ? data_.ConsumeIntegralInRange(0, 4) : data_.ConsumeIntegralInRange(1, 3);
+        for (int i = 0; i < zones; ++i) {
+            o += "    - name: " + (wild() ? text("zone") : "\"zone " + std::to_string(i) + "\"") + "\n";
+            switch (data_.ConsumeIntegralInRange(0, 2)) {
+                case 0:
+                    o += "      box: {x_min: " + quantity(3, {"m"}) + ", x_max: " + quantity(6, {"m"}) +
+                         ", y_min: " + quantity(-2, {"m"}) + ", y_max: " + quantity(2, {"m"}) +
+                         ", z_min: 0 m, z_max: " + quantity(3, {"m"}) + "}\n";
+                    break;
+                case 1:
+                    o += "      cylinder: {x: " + quantity(5, {"m"}) + ", y: " + quantity(1, {"m"}) +
+                         ", radius: " + quantity(0.4, {"m"}) + ", bottom: 0 m, top: " + quantity(10, {"m"}) + "}\n";
+                    break;
+                default:
+                    o += "      plane: {x1: " + quantity(12, {"m"}) + ", y1: -5 m, x2: " + quantity(12, {"m"}) +
+                         ", y2: 5 m, keep_out: " + (data_.ConsumeBool() ? "right" : "left") + "}\n";
+            }
+        }
+        return o;
+    }
+
+    // The elastic model's slewing motion (the slew axis at the origin).
+    std::string slew() {
+        std::string m = "  slew:\n    initial_radius: " + quantity(20, {"m"}) + "\n    initial_angle: " +
+                        quantity(10, {"deg"}) + "\n    slew_moves:\n";
+        m += "      - distance: " + quantity(data_.ConsumeBool() ? 90 : -45, {"deg", "rad"}) + "\n";
+        m += "        top_speed: " + quantity(4, {"deg/s", "rad/s"}) + "\n";
+        m += "        acceleration: " + quantity(0.5, {"deg/s^2"}) + "\n";
+        if (data_.ConsumeBool()) m += "        jerk: " + quantity(0.3, {"deg/s^3"}) + "\n";
+        if (data_.ConsumeBool()) {
+            m += "    radius_moves:\n      - distance: " + quantity(-5, {"m"}) + "\n        top_speed: " +
+                 quantity(0.5, {"m/s"}) + "\n        acceleration: " + quantity(0.2, {"m/s^2"}) + "\n";
+        }
+        return m;
+    }
+
+    std::string rope() {
+        if (data_.ConsumeIntegralInRange(0, 3) == 0) return "rope:\n  axial_stiffness: " + quantity(2e7, {"N", "kN"}) + "\n";
+        std::string r = "rope:\n  diameter: " + quantity(16, {"mm", "in"}) + "\n  fill_factor: " + quantity(0.55, {""}) + "\n";
+        if (!wild()) r += "  modulus: " + quantity(100, {"GPa", "MPa", "ksi"}) + "\n";
+        if (data_.ConsumeBool()) r += "  damping_ratio: " + quantity(0.02, {""}) + "\n";
+        return r;
+    }
+
+    std::string limits(bool zones) {
         std::string l = "limits:\n";
+        if (zones || wild()) l += "  clearance: " + quantity(0.5, {"m"}) + "\n";
         if (data_.ConsumeBool()) l += "  hook_rope_angle: " + quantity(5, {"deg"}) + "\n";
         if (data_.ConsumeBool()) l += "  load_angle: " + quantity(5, {"deg"}) + "\n";
         if (data_.ConsumeBool()) l += "  load_offset: " + quantity(0.5, {"m"}) + "\n";
@@ -130,6 +208,7 @@ private:
 
     std::string analysis() {
         std::string a = "analysis:\n  duration_after: " + quantity(10, {"s"}) + "\n";
+        if (elastic_) a += "  model: elastic\n";
         if (data_.ConsumeBool()) a += "  output_step: " + quantity(0.05, {"s"}) + "\n";
         if (data_.ConsumeBool()) a += "  relative_tolerance: " + quantity(1e-8, {""}) + "\n";
         if (data_.ConsumeBool()) a += "  absolute_tolerance: " + quantity(1e-10, {""}) + "\n";
@@ -210,6 +289,7 @@ private:
 
     FuzzedDataProvider& data_;
     int chaos_ = 0;
+    bool elastic_ = false;  // the job asks for the elastic model
 };
 
 // PLUMB_FUZZ_STATS=1: at exit, how many inputs were generated jobs, were
