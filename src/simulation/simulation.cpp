@@ -29,6 +29,12 @@ constexpr double derivative_safety = 4;
 // it changes no printed digit.
 constexpr double negligible_gain = 1e-10;
 
+// The bound on the interpolation error of the samples' parabola over a step
+// of length h for a quantity whose third derivative is at most m3 (see
+// search_span(): m3 h^3 / (72 sqrt 3), the constant written out so that no
+// division is left for run time).
+double interpolation_error(double m3, double h) { return m3 * h * h * h * (1 / 124.70765814495915); }
+
 // No bound on a quantity's third derivative (no history yet): search_span()
 // then searches every part of the step.
 constexpr double no_bound = std::numeric_limits<double>::infinity();
@@ -49,7 +55,7 @@ std::optional<std::pair<double, double>> search_span(const std::array<double, sa
     const double slope_from = g + bend * (j - 1), slope_to = slope_from + bend;  // dP/ds at the part's ends
     const double slack = m3 * h * h * (h / 2);  // m3 h^2 per second, per sample unit (h/2 seconds)
     if ((slope_from > slack && slope_to > slack) || (slope_from < -slack && slope_to < -slack)) return std::nullopt;
-    const double error = m3 * h * h * h / (72 * std::sqrt(3.0));
+    const double error = interpolation_error(m3, h);
     const double margin = v[1] + error - (bar + negligible_gain * std::fabs(bar));  // P + |e| - bar at s = 1
     double from = j, to = j + 1;
     if (bend < 0) {
@@ -76,7 +82,7 @@ std::optional<std::pair<double, double>> search_span(const std::array<double, sa
 // step_reach() is that bound's distance beyond the samples, the same below them.
 double step_reach(const std::array<double, samples_per_step + 1>& v, double m3, double h) {
     const double bend = v[0] - 2 * v[1] + v[2];
-    return std::fabs(bend) / 2 + m3 * h * h * h / (72 * std::sqrt(3.0));
+    return std::fabs(bend) / 2 + interpolation_error(m3, h);
 }
 
 bool step_could_exceed(const std::array<double, samples_per_step + 1>& v, double m3, double h, double bar) {
@@ -221,9 +227,11 @@ public:
         }
         times_[0] = step.t_begin;
         h_ = step.t_end - step.t_begin;
+        const double per_half_step_squared = 4 / (h_ * h_);
+        const double per_interval = recorded_.empty() ? 0.0 : 1 / (times_[1] - curvature_time_[recorded_.front()]);
         for (Quantity q : recorded_) {
             for (int j = 0; j <= samples_per_step; ++j) values_[q][j] = quantity_value(samples_[j], q);
-            third_bound_[q] = third_derivative_bound(q, h_, !step_seen_);
+            third_bound_[q] = third_derivative_bound(q, per_half_step_squared, per_interval, !step_seen_);
             const SampleValues& v = values_[q];
             const double reach = step_reach(v, third_bound_[q], h_);
             highest_[q] = std::max({v[0], v[1], v[2]}) + reach;
@@ -278,12 +286,16 @@ private:
     // change of the sampled second derivative between neighbouring steps (the
     // second difference of a step's samples is Q'' at some point of that
     // step). The first step has none: it is searched whole.
-    double third_derivative_bound(Quantity q, double h, bool first) {
+    //
+    // per_half_step_squared = 4 / h^2 and per_interval = 1 / (the time since
+    // the previous step's midpoint) are the same for every quantity: worked
+    // out once per step by the caller.
+    double third_derivative_bound(Quantity q, double per_half_step_squared, double per_interval, bool first) {
         const SampleValues& v = values_[q];
-        const double curvature = (v[0] - 2 * v[1] + v[2]) * 4 / (h * h);
+        const double curvature = (v[0] - 2 * v[1] + v[2]) * per_half_step_squared;
         const double at = times_[1];
         const double third = first ? std::numeric_limits<double>::infinity()
-                                   : std::fabs(curvature - curvature_[q]) / (at - curvature_time_[q]);
+                                   : std::fabs(curvature - curvature_[q]) * per_interval;
         const double m3 = derivative_safety * std::max(third, third_[q]);
         third_[q] = first ? 0.0 : third;
         curvature_[q] = curvature;
