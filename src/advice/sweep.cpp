@@ -137,32 +137,32 @@ JobNumber job_number(Job& job, const std::string& key) {
         return move_number((*moves)[static_cast<std::size_t>(index - 1)], parts[2]);
     }
     if (parts.size() != 2) return {};
-    const std::string& section = parts[0];
-    const std::string& name = parts[1];
-    const std::map<std::string, double*> plain = {
-        {"motion.emergency_deceleration", given(job.motion.emergency_deceleration)},
-        {"hoist.rope_length", &job.hoist.rope_length},
-        {"hoist.rated_load", &job.hoist.rated_load},
-        {"hoist.rope_wll", given(job.hoist.rope_wll)},
-        {"hoist.rope_minimum_breaking_load", given(job.hoist.rope_minimum_breaking_load)},
-        {"hoist.sheave_efficiency", &job.hoist.sheave_efficiency},
-        {"hook_block.mass", &job.hook_block.mass},
-        {"rigging.length", &job.rigging.length},
-        {"rigging.leg_wll", given(job.rigging.leg_wll)},
-        {"load.mass", &job.load.mass},
-        {"load.radius_of_gyration", &job.load.radius_of_gyration},
-        {"load.initial_angle", &job.load.initial_angle},
-        {"load.initial_rate", &job.load.initial_rate},
-        {"environment.gravity", &job.environment.gravity},
-        {"environment.wind_speed", &job.environment.wind_speed},
-        {"environment.wind_direction", &job.environment.wind_direction},
-        {"environment.gust_peak", &job.environment.gust_peak},
-        {"environment.gust_start", &job.environment.gust_start},
-        {"environment.gust_duration", &job.environment.gust_duration},
-        {"analysis.duration_after", given(job.analysis.duration_after)},
+    // Built once: a case reads its keys through this table thousands of times.
+    using Field = double* (*)(Job&);
+    static const std::map<std::string, Field, std::less<>> plain = {
+        {"motion.emergency_deceleration", [](Job& j) { return given(j.motion.emergency_deceleration); }},
+        {"hoist.rope_length", [](Job& j) { return &j.hoist.rope_length; }},
+        {"hoist.rated_load", [](Job& j) { return &j.hoist.rated_load; }},
+        {"hoist.rope_wll", [](Job& j) { return given(j.hoist.rope_wll); }},
+        {"hoist.rope_minimum_breaking_load", [](Job& j) { return given(j.hoist.rope_minimum_breaking_load); }},
+        {"hoist.sheave_efficiency", [](Job& j) { return &j.hoist.sheave_efficiency; }},
+        {"hook_block.mass", [](Job& j) { return &j.hook_block.mass; }},
+        {"rigging.length", [](Job& j) { return &j.rigging.length; }},
+        {"rigging.leg_wll", [](Job& j) { return given(j.rigging.leg_wll); }},
+        {"load.mass", [](Job& j) { return &j.load.mass; }},
+        {"load.radius_of_gyration", [](Job& j) { return &j.load.radius_of_gyration; }},
+        {"load.initial_angle", [](Job& j) { return &j.load.initial_angle; }},
+        {"load.initial_rate", [](Job& j) { return &j.load.initial_rate; }},
+        {"environment.gravity", [](Job& j) { return &j.environment.gravity; }},
+        {"environment.wind_speed", [](Job& j) { return &j.environment.wind_speed; }},
+        {"environment.wind_direction", [](Job& j) { return &j.environment.wind_direction; }},
+        {"environment.gust_peak", [](Job& j) { return &j.environment.gust_peak; }},
+        {"environment.gust_start", [](Job& j) { return &j.environment.gust_start; }},
+        {"environment.gust_duration", [](Job& j) { return &j.environment.gust_duration; }},
+        {"analysis.duration_after", [](Job& j) { return given(j.analysis.duration_after); }},
     };
-    const auto at = plain.find(section + "." + name);
-    return at == plain.end() ? JobNumber{} : JobNumber{at->second};
+    const auto at = plain.find(parts[0] + "." + parts[1]);
+    return at == plain.end() ? JobNumber{} : JobNumber{at->second(job)};
 }
 
 // Whether a job built from separately read values might break one of the
