@@ -6,6 +6,7 @@
 
 #include "elastic_members.hpp"
 #include "plumb/errors.hpp"
+#include "plumb/job.hpp"
 
 namespace plumb {
 
@@ -155,8 +156,8 @@ void ElasticLiftModel::derivatives(double t, const Regime& r, std::span<const do
 std::vector<StateComponent> ElasticLiftModel::state_components() const {
     // 1 um and 1 um/s: far below any clearance or stretch a lift plan reads,
     // and well above rounding of positions of tens of metres.
-    constexpr double position_tolerance = 1e-6;
-    constexpr double speed_tolerance = 1e-6;
+    constexpr double position_tolerance = elastic_default_absolute_tolerance;
+    constexpr double speed_tolerance = elastic_default_absolute_tolerance;
     std::vector<StateComponent> c;
     for (const char* body : {"hook", "load"})
         for (const char* axis : {"x", "y", "z"})
