@@ -60,6 +60,9 @@ ElasticLiftModel::ElasticLiftModel(const ElasticParameters& p, const SupportTraj
     require_not_negative(p.lead_length, "lead length");
     require_not_negative(p.damping_ratio, "damping ratio");
     require_not_negative(p.wind.air_density, "air density");
+    rigging_stiffness_ = p_.rigging_legs * p_.rigging_rope.ea() / p_.rigging_length;
+    rigging_damping_ = dashpot(rigging_stiffness_, p_.load_mass);
+    wind_direction_ = Eigen::Vector3d(std::cos(p_.wind.direction), std::sin(p_.wind.direction), 0.0);
 }
 
 double ElasticLiftModel::hoist_rope_stiffness(double fall_length) const {
@@ -67,19 +70,14 @@ double ElasticLiftModel::hoist_rope_stiffness(double fall_length) const {
     return n * n * p_.hoist_rope.ea() / (n * fall_length + p_.lead_length);
 }
 
-double ElasticLiftModel::rigging_stiffness() const {
-    return p_.rigging_legs * p_.rigging_rope.ea() / p_.rigging_length;
-}
-
 // c = 2 zeta sqrt(k m): the dashpot that gives the member, carrying the mass
 // that hangs on it from a fixed top, the damping ratio zeta.
-double ElasticLiftModel::hoist_rope_damping(double fall_length) const {
-    return 2.0 * p_.damping_ratio *
-           std::sqrt(hoist_rope_stiffness(fall_length) * (p_.hook_block_mass + p_.load_mass));
+double ElasticLiftModel::dashpot(double stiffness, double mass) const {
+    return p_.damping_ratio > 0 ? 2.0 * p_.damping_ratio * std::sqrt(stiffness * mass) : 0.0;
 }
 
-double ElasticLiftModel::rigging_damping() const {
-    return 2.0 * p_.damping_ratio * std::sqrt(rigging_stiffness() * p_.load_mass);
+double ElasticLiftModel::hoist_rope_damping(double fall_length) const {
+    return hoist_rope_damping_at(hoist_rope_stiffness(fall_length));
 }
 
 namespace elastic_detail {
@@ -113,13 +111,14 @@ Snapshot snapshot(const ElasticLiftModel& model, double t, const Regime& r, std:
     s.hook_velocity = Vec3(x[6], x[7], x[8]);
     s.load_velocity = Vec3(x[9], x[10], x[11]);
     const double L = s.support.rope_length;
+    const double k1 = model.hoist_rope_stiffness(L);
     s.hoist_rope = make_member(s.hook - s.support.position, s.hook_velocity - s.support.velocity, L,
-                               s.support.rope_speed, model.hoist_rope_stiffness(L),
-                               model.hoist_rope_damping(L), (r.mode & elastic_mode::hoist_rope_slack) != 0);
+                               s.support.rope_speed, k1, model.hoist_rope_damping_at(k1),
+                               (r.mode & elastic_mode::hoist_rope_slack) != 0);
     s.rigging = make_member(s.load - s.hook, s.load_velocity - s.hook_velocity, model.parameters().rigging_length,
                             0.0, model.rigging_stiffness(), model.rigging_damping(),
                             (r.mode & elastic_mode::rigging_slack) != 0);
-    s.wind = model.parameters().wind.velocity(t);
+    s.wind = model.wind_velocity(t);
     s.load_on_ground = (r.mode & elastic_mode::load_on_ground) != 0;
     return s;
 }
