@@ -331,8 +331,9 @@ void tolerance_study(Ramps ramps, double damping_ratio, Reeving reeving) {
     Config reference{"", SwingModelChoice::elastic, IntegratorMethod::runge_kutta, NonlinearIteration::newton,
                      1e-11, std::nullopt, {1e-12, 1e-12}};
     const SimulationResult ref = run(reference, ramps, damping_ratio, reeving, 1).result;
-    std::printf("\ntolerance study (%s, damping %.0f %%): steps, ms, swing error (relative), tension error (N)\n",
-                ramps == Ramps::s_curve ? "S-curve moves" : "acceleration steps", damping_ratio * 100);
+    std::printf("\ntolerance study (%s, %s, damping %.0f %%): steps, ms, swing error (relative), tension error (N)\n",
+                ramps == Ramps::s_curve ? "S-curve moves" : "acceleration steps",
+                reeving == Reeving::one_fall ? "one fall" : "four falls, 1 m four-leg rigging", damping_ratio * 100);
     std::printf("%7s %8s %8s | %-30s | %-30s | %-30s\n", "rtol", "atol m", "atol m/s", "BDF", "Adams fixed-point",
                 "explicit RK");
     struct Row {
