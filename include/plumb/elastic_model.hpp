@@ -134,6 +134,7 @@ struct MemberObservation {
 // tensions).
 struct ElasticObservation {
     double time = 0;
+    SupportKinematics support;  // the suspension point's whole kinematics at this instant
     Eigen::Vector3d suspension_point = Eigen::Vector3d::Zero();
     Eigen::Vector3d suspension_velocity = Eigen::Vector3d::Zero();
     Eigen::Vector3d hook = Eigen::Vector3d::Zero();

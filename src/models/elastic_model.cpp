@@ -179,6 +179,7 @@ ElasticObservation ElasticLiftModel::observe(double t, const Regime& r, std::spa
     const Snapshot s = elastic_detail::snapshot(*this, t, r, x);
     ElasticObservation o;
     o.time = t;
+    o.support = s.support;
     o.suspension_point = s.support.position;
     o.suspension_velocity = s.support.velocity;
     o.hook = s.hook;
