@@ -178,10 +178,12 @@ struct CvodeWorkspace {
     NonlinearIteration iteration;
     SundialsContext context;
     SerialVector y, interpolated, tolerance;
+    // Fixed-point iteration only; declared before the CVODE memory that
+    // refers to it, so that it is freed after it.
+    std::optional<NonlinearSolver> fixed_point;
     CvodeMemory cvode;
     DenseMatrix matrix;
     DenseLinearSolver solver;
-    std::optional<NonlinearSolver> fixed_point;  // fixed-point iteration only
     CvodeDenseStep step;
     CallbackData data;
     std::vector<int> roots;
