@@ -202,6 +202,10 @@ SimulationRequest request_with(IntegratorMethod method, double rtol, double atol
     r.integrator.method = method;
     r.integrator.relative_tolerance = rtol;
     r.integrator.absolute_tolerance = atol;
+    // The records a planar rigid job keeps (no slewing or travel-axis components).
+    Job planar_rigid;
+    planar_rigid.analysis.model = SwingModelChoice::rigid;
+    r.recorded = reported_quantities(planar_rigid);
     return r;
 }
 

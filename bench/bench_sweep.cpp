@@ -8,6 +8,10 @@
 // threads): on a machine shared with other work, CPU time per case is the
 // figure that does not depend on the others' load; wall time does.
 // Usage: plumb_bench_sweep JOB [CASES]   (JOB: cases/coil-transfer.yaml; CASES default 10000)
+//        plumb_bench_sweep --elastic JOB [CASES] [THREADS]
+//   (JOB with analysis.model: elastic, e.g. cases/workshop-two-axis-hoist.yaml;
+//   CASES default 1000, a grid of load mass x hoist rope length around the
+//   job's own values; THREADS default 2): CPU time per case of the elastic model.
 #include <sys/resource.h>
 
 #include <chrono>
@@ -16,6 +20,7 @@
 #include <cstdlib>
 #include <string>
 
+#include "plumb/job_file.hpp"
 #include "plumb/sweep.hpp"
 
 namespace {
@@ -57,7 +62,38 @@ Run sweep(const char* job, int rows, int columns, double simulated, int threads)
 
 }  // namespace
 
+// The elastic model over a grid of load mass (0.8 to 1.2 times the job's)
+// and hoist rope length (0.8 to 1 times).
+void elastic_sweep(const char* job_path, int cases, int threads) {
+    const plumb::Job job = plumb::load_job_file(job_path);
+    const int side = std::max(2, static_cast<int>(std::lround(std::sqrt(static_cast<double>(cases)))));
+    auto range = [&](const char* key, double from, double to, const char* unit) {
+        return plumb::parse_varied_field(std::string(key) + "=" + plumb::job_number_text(from) + " " + unit + ":" +
+                                         plumb::job_number_text(to) + " " + unit + ":" + std::to_string(side));
+    };
+    // The rope no longer than the job's: a keep-out zone's floor datum stays below the load.
+    const std::vector<plumb::VariedField> fields{
+        range("load.mass", 0.8 * job.load.mass, 1.2 * job.load.mass, "kg"),
+        range("hoist.rope_length", 0.8 * job.hoist.rope_length, job.hoist.rope_length, "m")};
+    const double cpu0 = process_cpu_seconds();
+    const auto start = std::chrono::steady_clock::now();
+    const plumb::SweepResult r = plumb::run_sweep(job_path, fields, {}, threads, {});
+    const double wall = std::chrono::duration<double>(std::chrono::steady_clock::now() - start).count();
+    const double cpu = process_cpu_seconds() - cpu0;
+    std::size_t errors = 0;
+    for (const plumb::SweepCaseResult& c : r.cases) errors += c.overall.find("ERROR") != std::string::npos;
+    std::printf("elastic model, %s: %zu cases on %d thread%s: wall %.1f s, CPU %.1f s (%.1f ms per case, %.0f cases "
+                "per CPU second)%s\n",
+                job_path, r.cases.size(), threads, threads == 1 ? "" : "s", wall, cpu,
+                1e3 * cpu / static_cast<double>(r.cases.size()), static_cast<double>(r.cases.size()) / cpu,
+                errors > 0 ? "  (some cases ended in errors)" : "");
+}
+
 int main(int argc, char** argv) {
+    if (argc >= 3 && std::string(argv[1]) == "--elastic") {
+        elastic_sweep(argv[2], argc > 3 ? std::atoi(argv[3]) : 1000, argc > 4 ? std::atoi(argv[4]) : 2);
+        return 0;
+    }
     if (argc < 2) {
         std::fprintf(stderr, "usage: plumb_bench_sweep JOB [CASES]\n");
         return 2;

@@ -2,6 +2,7 @@
 // split into shards; varied values are read by the job-file parser.
 #include <catch2/catch.hpp>
 
+#include <algorithm>
 #include <cmath>
 #include <mutex>
 #include <string>
@@ -131,4 +132,23 @@ TEST_CASE("a sweep's cases built from the parsed job equal the cases parsed whol
     // -1 m in 8 cases; 1999 t with 1500 kg over the cap in 4 more.
     CHECK(input_errors == 8 + 4);
     CHECK(passes > 0);
+}
+
+TEST_CASE("a sweep lists the peaks the job reports and no others", "[sweep]") {
+    // The coil transfer is a planar lift on the rigid model: it reports no
+    // swing components on the jib (no slewing) or on the travel axes (those
+    // belong to the elastic model), so the sweep has no column for them.
+    const SweepResult r = run_sweep(coil, {parse_varied_field("hoist.rope_length=7 m:8 m:2")}, {}, 1, {});
+    const Job job = load_job_file(coil);
+    std::vector<std::string> reported;
+    for (const QuantitySpec& q : quantity_table())
+        if (has_record(q, Record::peak) && reported_for(q, job)) reported.push_back(q.key);
+    CHECK(r.peak_keys == reported);
+    for (const char* absent : {"hook_rope_radial_angle", "load_tangential_angle", "load_angle_along_x"})
+        CHECK(std::find(r.peak_keys.begin(), r.peak_keys.end(), absent) == r.peak_keys.end());
+    CHECK(std::find(r.peak_keys.begin(), r.peak_keys.end(), "load_angle") != r.peak_keys.end());
+    for (const SweepCaseResult& c : r.cases) CHECK(c.peaks.size() == reported.size());
+    const std::string csv = format_sweep_csv({parse_varied_field("hoist.rope_length=7 m:8 m:2")}, r);
+    CHECK(csv.find("peak_load_angle,") != std::string::npos);
+    CHECK(csv.find("peak_load_angle_along_x") == std::string::npos);
 }

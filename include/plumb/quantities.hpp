@@ -154,4 +154,8 @@ struct PerQuantity {
     friend bool operator==(const PerQuantity&, const PerQuantity&) = default;
 };
 
+// Every quantity, or the ones a job's outputs list (reported_for()).
+PerQuantity<bool> every_quantity();
+PerQuantity<bool> reported_quantities(const Job& job);
+
 }  // namespace plumb

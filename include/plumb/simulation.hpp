@@ -56,6 +56,10 @@ struct SimulationRequest {
     // is computed (quantities with the per_zone record stay at infinity).
     // Kept alive by the caller for the run.
     const Obstacles* obstacles = nullptr;
+    // The quantities whose records (peak, least, residual, lift-off) to keep:
+    // the outputs of a job list only those (reported_quantities()). The others'
+    // records stay at zero and cost nothing. Default: every quantity.
+    PerQuantity<bool> recorded = every_quantity();
 };
 
 // The load at its nearest to one keep-out zone over the whole run.

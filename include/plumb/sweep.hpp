@@ -37,7 +37,7 @@ struct SweepCaseResult {
     std::size_t index = 0;            // in the full grid, the last field fastest
     std::vector<std::string> values;  // varied values as text
     std::string overall;              // PASS / CAUTION / FAIL, INPUT ERROR, NUMERICAL ERROR
-    std::vector<double> peaks;        // one per quantity with a peak (sweep_peak_keys()), SI
+    std::vector<double> peaks;        // one per key of SweepResult::peak_keys, SI
     std::vector<std::string> check_verdicts;
     std::vector<double> check_utilisations;
     std::string error;                // for the two error kinds
@@ -46,11 +46,12 @@ struct SweepCaseResult {
 // A number as job-file text: the shortest form to 12 significant digits.
 std::string job_number_text(double v);
 
-// The keys of the quantities whose peaks a case keeps, in order.
-std::vector<std::string> sweep_peak_keys();
-
 struct SweepResult {
     std::vector<std::string> check_names;
+    // The quantities with a peak that the job reports (quantity table keys, in
+    // table order): the varied numbers leave the job's kind (model, slewing,
+    // keep-out zones) as it is, so every case reports the same ones.
+    std::vector<std::string> peak_keys;
     std::vector<std::string> assumptions;  // the model's, as every output states them
     std::vector<SweepCaseResult> cases;  // in index order
     std::size_t total_cases = 0;         // the full grid

@@ -127,6 +127,7 @@ SweepResult merge(const std::vector<std::string>& parts) {
         SweepResult part = decode_sweep_result(bytes);
         if (all.check_names.empty()) {
             all.check_names = std::move(part.check_names);
+            all.peak_keys = std::move(part.peak_keys);
             all.assumptions = std::move(part.assumptions);
         } else if (!part.check_names.empty() && part.check_names != all.check_names) {
             throw std::runtime_error("processes of one run list different checks");
@@ -164,6 +165,7 @@ std::vector<std::size_t> share_of(const ProcessGroup& group, std::size_t count) 
 std::string encode_sweep_result(const SweepResult& r) {
     Writer w;
     w.texts(r.check_names);
+    w.texts(r.peak_keys);
     w.texts(r.assumptions);
     w.number(r.total_cases);
     w.number(r.cases.size());
@@ -183,6 +185,7 @@ SweepResult decode_sweep_result(const std::string& bytes) {
     Reader in(bytes);
     SweepResult r;
     r.check_names = in.texts();
+    r.peak_keys = in.texts();
     r.assumptions = in.texts();
     r.total_cases = in.number();
     r.cases.resize(in.number());

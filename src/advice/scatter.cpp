@@ -241,7 +241,7 @@ ScatterResult run_scatter(const std::string& job_path, const ScatterSettings& se
     if (settings.subset) r.small = small_probabilities(job_path, r, group, r.small_model_runs);
     if (!group.is_first()) return r;
 
-    const std::vector<std::string> peak_keys = sweep_peak_keys();
+    const std::vector<std::string>& peak_keys = r.cases.peak_keys;
     for (std::size_t q = 0; q < peak_keys.size(); ++q) {
         std::vector<double> v;
         double sum = 0;

@@ -89,10 +89,11 @@ std::vector<int> grid_position(std::size_t index, const std::vector<VariedField>
     return position;
 }
 
-std::vector<const QuantitySpec*> peak_quantities() {
+// The quantities with a peak that the job's outputs list.
+std::vector<const QuantitySpec*> peak_quantities(const Job& job) {
     std::vector<const QuantitySpec*> list;
     for (const QuantitySpec& q : quantity_table())
-        if (has_record(q, Record::peak)) list.push_back(&q);
+        if (has_record(q, Record::peak) && reported_for(q, job)) list.push_back(&q);
     return list;
 }
 
@@ -274,13 +275,16 @@ SweepCaseResult JobCases::run(std::size_t k, SimulationWorkspace& workspace, Swe
     r.index = p.indices[k];
     r.values = p.values_of(r.index);
     try {
-        const LiftAssessment a = assess_lift(case_job(r.values), false, workspace);
+        const Job job = case_job(r.values);
+        const LiftAssessment a = assess_lift(job, false, workspace);
         r.overall = a.prediction.valid_until() ? "FAIL" : verdict_word(a.overall);
-        for (const QuantitySpec* q : peak_quantities()) r.peaks.push_back(a.prediction.peak(q->id).value);
+        const std::vector<const QuantitySpec*> peaks = peak_quantities(job);
+        for (const QuantitySpec* q : peaks) r.peaks.push_back(a.prediction.peak(q->id).value);
         std::vector<std::string>& check_names = shared.check_names;
         std::lock_guard lock(names_mutex);
         if (check_names.empty()) {
             for (const CheckResult& c : a.checks) check_names.push_back(c.name);
+            for (const QuantitySpec* q : peaks) shared.peak_keys.push_back(q->key);
             shared.assumptions = a.prediction.model.assumptions;
         }
         for (const std::string& name : check_names) {
@@ -345,11 +349,6 @@ std::string job_number_text(double v) {
     return buffer;
 }
 
-std::vector<std::string> sweep_peak_keys() {
-    std::vector<std::string> keys;
-    for (const QuantitySpec* q : peak_quantities()) keys.push_back(q->key);
-    return keys;
-}
 
 std::string VariedField::text(int i) const {
     const double v = count == 1 ? from : from + (to - from) * i / (count - 1);
@@ -466,7 +465,7 @@ std::string format_sweep_csv(const std::vector<VariedField>& fields, const Sweep
     out << "case";
     for (const VariedField& f : fields) out << "," << csv_field(f.key);
     out << ",overall";
-    for (const QuantitySpec* q : peak_quantities()) out << ",peak_" << q->key;
+    for (const std::string& key : result.peak_keys) out << ",peak_" << key;
     for (const std::string& c : result.check_names) out << "," << c << "_verdict," << c << "_utilisation";
     out << ",error\n";
     for (const SweepCaseResult& r : result.cases) {
@@ -474,7 +473,7 @@ std::string format_sweep_csv(const std::vector<VariedField>& fields, const Sweep
         for (const std::string& v : r.values) out << "," << csv_field(v);
         out << "," << r.overall;
         char buffer[64];
-        for (std::size_t q = 0; q < peak_quantities().size(); ++q) {
+        for (std::size_t q = 0; q < result.peak_keys.size(); ++q) {
             out << ",";
             if (q < r.peaks.size()) {
                 std::snprintf(buffer, sizeof buffer, "%.9g", r.peaks[q]);

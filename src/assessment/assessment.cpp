@@ -325,6 +325,7 @@ LiftPrediction predict_in(const Job& job, const SwingModel& model, const ModelDe
     request.watch = watch;
     if (!job.obstacles.zones.empty()) request.obstacles = &job.obstacles;
     request.lift_off_window = description.vertical_bounce_period.value_or(0.0);
+    request.recorded = reported_quantities(job);
     p.simulation = workspace != nullptr ? simulate(model, request, *workspace) : simulate(model, request);
 
     p.parts_of_line = job.hoist.parts_of_line;

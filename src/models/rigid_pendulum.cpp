@@ -4,6 +4,7 @@
 
 #include "plumb/rigid_pendulum.hpp"
 #include "plumb/model.hpp"
+#include "plumb/sine_cosine.hpp"
 
 namespace plumb {
 
@@ -43,11 +44,13 @@ namespace {
 
 // Sines and cosines of both link angles: the right-hand side needs no others
 // (the angle difference follows by the addition formulas), and they are the
-// costliest part of it.
+// costliest part of it (hence sine_cosine(), not the C library's).
 struct LinkTrig {
     double s1, c1, s2, c2;
-    LinkTrig(double theta1, double theta2)
-        : s1(std::sin(theta1)), c1(std::cos(theta1)), s2(std::sin(theta2)), c2(std::cos(theta2)) {}
+    LinkTrig(double theta1, double theta2) : LinkTrig(sine_cosine(theta1), sine_cosine(theta2)) {}
+
+private:
+    LinkTrig(SineCosine one, SineCosine two) : s1(one.sin), c1(one.cos), s2(two.sin), c2(two.cos) {}
 };
 
 // docs/model.md, "Equations of motion": M(q) q'' = r(q, q', a), solved by the
@@ -115,7 +118,7 @@ Observation RigidPendulumModel::observe(double t, const Regime& r, std::span<con
     const double fx2 = p_.load_mass * ax2, fz2 = p_.load_mass * (az2 + g);
     const double fx1 = p_.hook_block_mass * ax1 + fx2, fz1 = p_.hook_block_mass * (az1 + g) + fz2;
     rigging.tension = -fx2 * s2 + fz2 * c2;      // along the rigging, toward the hook
-    rigging.resultant = std::hypot(fx2, fz2);
+    rigging.resultant = std::sqrt(fx2 * fx2 + fz2 * fz2);  // forces far from overflow: no need for hypot
     rope.tension = -fx1 * s1 + fz1 * c1;         // along the rope, toward the support
     // The rope is a pinned massless two-force member: its force lies along it
     // on every solution (docs/model.md, "Tensions"), so its magnitude is |T1|.

@@ -131,7 +131,7 @@ struct PeaksAgainstLimit {
 };
 
 std::optional<PeaksAgainstLimit> peaks_against_limit(const ScatterResult& r, std::size_t k) {
-    const std::vector<std::string> keys = sweep_peak_keys();
+    const std::vector<std::string>& keys = r.cases.peak_keys;
     const auto at = std::find(keys.begin(), keys.end(), r.cases.check_names[k]);
     if (at == keys.end()) return std::nullopt;
     const auto q = static_cast<std::size_t>(at - keys.begin());

@@ -182,6 +182,22 @@ double lead_line_factor(int parts_of_line, double sheave_efficiency) {
 
 const QuantitySpec& quantity_spec(Quantity q) { return table[index_of(q)]; }
 
+PerQuantity<bool> every_quantity() {
+    PerQuantity<bool> all;
+    all.values.fill(true);
+    return all;
+}
+
+PerQuantity<bool> reported_quantities(const Job& job) {
+    PerQuantity<bool> listed;
+    for (const QuantitySpec& q : quantity_table()) {
+        if (!reported_for(q, job)) continue;
+        listed[q.id] = true;
+        if (is_derived(q)) listed[q.base] = true;  // its records are the base quantity's
+    }
+    return listed;
+}
+
 double quantity_value(const Observation& o, Quantity q) {
     const QuantitySpec& s = table[index_of(q)];
     const double v = s.read(o);

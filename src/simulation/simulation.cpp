@@ -6,11 +6,12 @@
 #include "plumb/simulation.hpp"
 
 #include <array>
-#include <boost/math/tools/minima.hpp>
 #include <cmath>
 #include <limits>
 #include <optional>
 #include <utility>
+
+#include "plumb/extremum_search.hpp"
 
 namespace plumb {
 
@@ -65,6 +66,24 @@ std::optional<std::pair<double, double>> search_span(const std::array<double, sa
     return std::pair{from, to};
 }
 
+// Whether the quantity could exceed `bar` (beyond a negligible gain) anywhere
+// in the step: a quick test before search_span() looks at each part. The
+// parabola P through the samples rises at most |bend| / 2 above its middle
+// sample inside the step (its vertex lies in the step only when |slope| <=
+// |bend|, and then P(vertex) - v1 = slope^2 / (2 |bend|)), so P stays below
+// max(v) + |bend| / 2, and the quantity below that plus search_span()'s |e|.
+//
+// step_reach() is that bound's distance beyond the samples, the same below them.
+double step_reach(const std::array<double, samples_per_step + 1>& v, double m3, double h) {
+    const double bend = v[0] - 2 * v[1] + v[2];
+    return std::fabs(bend) / 2 + m3 * h * h * h / (72 * std::sqrt(3.0));
+}
+
+bool step_could_exceed(const std::array<double, samples_per_step + 1>& v, double m3, double h, double bar) {
+    const double highest = std::max({v[0], v[1], v[2]}) + step_reach(v, m3, h);
+    return !(highest <= bar + negligible_gain * std::fabs(bar));
+}
+
 // The extreme (largest, or smallest when seeking the minimum) of one quantity.
 struct ExtremeTracker {
     Quantity quantity;
@@ -113,19 +132,42 @@ std::vector<Quantity> recorded_quantities() {
 using SampleValues = std::array<double, samples_per_step + 1>;
 
 struct SimulationWorkspace::Buffers {
+    // Every tracker the table asks for, and of them those of this run's
+    // recorded quantities (SimulationRequest::recorded).
+    std::vector<ExtremeTracker> all_whole_run, all_residual, all_lift_off;
     std::vector<ExtremeTracker> whole_run, residual, lift_off;
     std::array<SnatchTracker, member_count> snatch{};
-    std::vector<Quantity> recorded = recorded_quantities();
+    std::vector<Quantity> all_recorded = recorded_quantities();
+    std::vector<Quantity> recorded;
     std::vector<double> x, x0, breaks;
     std::array<double, samples_per_step + 1> times{};
     std::array<Observation, samples_per_step + 1> samples{};
     PerQuantity<SampleValues> values{};  // of the recorded quantities at the samples
     std::vector<SampleValues> zone_values;  // clearance to each keep-out zone at the samples
     PerQuantity<double> third_bound{};     // the bound on |third derivative| over this step
+    PerQuantity<double> highest{}, lowest{};  // bounds of the quantity over this step (step_reach())
     PerQuantity<double> curvature{};       // second derivative estimated on the previous step ...
     PerQuantity<double> curvature_time{};  // ... at this time (its midpoint)
     PerQuantity<double> third{};           // |third derivative| estimated between the previous two steps
-    Buffers() { add_trackers(whole_run, residual, lift_off); }
+    Buffers() { add_trackers(all_whole_run, all_residual, all_lift_off); }
+
+    // The trackers and sample values of the quantities this run records
+    // (after the first run, without allocating).
+    void select(const PerQuantity<bool>& wanted) {
+        auto keep = [&](const std::vector<ExtremeTracker>& all, std::vector<ExtremeTracker>& chosen) {
+            chosen.clear();
+            for (const ExtremeTracker& t : all) {
+                if (wanted[t.quantity]) chosen.push_back(t);
+            }
+        };
+        keep(all_whole_run, whole_run);
+        keep(all_residual, residual);
+        keep(all_lift_off, lift_off);
+        recorded.clear();
+        for (Quantity q : all_recorded) {
+            if (wanted[q]) recorded.push_back(q);
+        }
+    }
 };
 
 SimulationWorkspace::SimulationWorkspace() : buffers_(std::make_unique<Buffers>()) {}
@@ -141,10 +183,12 @@ public:
              SimulationResult& result, Buffers& buffers)
         : model_(model), request_(request), residual_from_(residual_from), result_(result),
           x_(buffers.x), times_(buffers.times), samples_(buffers.samples), values_(buffers.values),
-          third_bound_(buffers.third_bound), curvature_(buffers.curvature), curvature_time_(buffers.curvature_time),
+          third_bound_(buffers.third_bound), highest_(buffers.highest), lowest_(buffers.lowest),
+          curvature_(buffers.curvature), curvature_time_(buffers.curvature_time),
           third_(buffers.third),
           recorded_(buffers.recorded), whole_run_(buffers.whole_run), residual_(buffers.residual),
           lift_off_(buffers.lift_off), snatch_(buffers.snatch), zone_values_(buffers.zone_values) {
+        buffers.select(request.recorded);
         x_.resize(model.state_size());
         for (ExtremeTracker& t : whole_run_) t.seen = false;
         for (ExtremeTracker& t : residual_) t.seen = false;
@@ -180,6 +224,10 @@ public:
         for (Quantity q : recorded_) {
             for (int j = 0; j <= samples_per_step; ++j) values_[q][j] = quantity_value(samples_[j], q);
             third_bound_[q] = third_derivative_bound(q, h_, !step_seen_);
+            const SampleValues& v = values_[q];
+            const double reach = step_reach(v, third_bound_[q], h_);
+            highest_[q] = std::max({v[0], v[1], v[2]}) + reach;
+            lowest_[q] = std::min({v[0], v[1], v[2]}) - reach;
         }
         step_seen_ = true;
         // While the load rests on the ground the ropes carry less than its
@@ -218,7 +266,7 @@ private:
     // A quantity at sample j of this step: read once per step if it has records.
     double sample_value(int j, Quantity q) const {
         const QuantitySpec& spec = quantity_spec(q);
-        if ((spec.records & ~unsigned{Record::series}) != 0) return values_[q][j];
+        if ((spec.records & ~unsigned{Record::series}) != 0 && request_.recorded[q]) return values_[q][j];
         return quantity_value(samples_[j], q);
     }
 
@@ -243,11 +291,19 @@ private:
         return std::isnan(m3) ? std::numeric_limits<double>::infinity() : m3;
     }
 
-    // The largest score of q on [lo, hi] (Brent's method on the interpolant).
-    Peak refine(const ExtremeTracker& tracker, double lo, double hi) {
-        auto negative_score = [&](double t) { return -tracker.score(value_at(t, tracker.quantity)); };
-        const auto [t, f] =
-            boost::math::tools::brent_find_minima(negative_score, lo, hi, std::numeric_limits<double>::digits / 2);
+    // The largest score on the part `span` (in sample units) of this step:
+    // Brent's method on the interpolant, started at the vertex of the
+    // parabola through the samples' scores (extremum_search.hpp).
+    template <class Score>
+    Peak largest_score(const SampleValues& scores, std::pair<double, double> span, Score score) const {
+        const double bend = scores[0] - 2 * scores[1] + scores[2];
+        const double slope = 0.5 * (scores[2] - scores[0]);
+        const double vertex = bend < 0 ? 1 - slope / bend : (span.first + span.second) / 2;
+        std::array<KnownPoint, 3> known;
+        for (int j = 0; j <= samples_per_step; ++j) known[j] = {times_[j], -scores[j]};
+        const auto [t, f] = minimise_from([&](double at) { return -score(at); }, time_at(span.first),
+                                          time_at(span.second), time_at(std::clamp(vertex, span.first, span.second)),
+                                          known, std::numeric_limits<double>::digits / 2);
         return {-f, t};
     }
 
@@ -292,6 +348,9 @@ private:
     // Bring a record (largest, or least, of one quantity) up to this step.
     void update_record(const ExtremeTracker& tracker, Peak& record, bool& seen) {
         const double so_far = seen ? tracker.score(record.value) : -std::numeric_limits<double>::infinity();
+        // Nothing in this step can beat the record: the common case, settled
+        // by the step's bound alone (the same answer step_extreme() would give).
+        if (seen && score_bound(tracker.quantity, tracker.minimum) <= so_far) return;
         const Peak candidate = step_extreme(values_[tracker.quantity], tracker.minimum, so_far,
                                             third_bound_[tracker.quantity],
                                             [&](double t) { return value_at(t, tracker.quantity); });
@@ -300,6 +359,10 @@ private:
             seen = true;
         }
     }
+
+    // The largest score of a recorded quantity anywhere in this step (its value,
+    // or minus it when seeking the least), by the step's bound.
+    double score_bound(Quantity q, bool minimum) const { return minimum ? -lowest_[q] : highest_[q]; }
 
     // The closest approach to each keep-out zone: the least clearance by the
     // same sampling and refinement as the table's least values, and where the
@@ -343,15 +406,16 @@ private:
             if (scores[j] > scores[best]) best = j;
         }
         Peak candidate{scores[best], times_[best]};  // as a score until the end
+        if (!step_could_exceed(scores, m3, h_, std::max(so_far, candidate.value))) {
+            return {minimum ? -candidate.value : candidate.value, candidate.time};
+        }
         for (int j = 0; j < samples_per_step; ++j) {
             const double bar = std::max(so_far, candidate.value);
             const auto span = search_span(scores, j, m3, h_, bar);
             if (!span) continue;
-            auto negative_score = [&](double t) { return minimum ? value_at(t) : -value_at(t); };
-            const auto [t, f] = boost::math::tools::brent_find_minima(negative_score, time_at(span->first),
-                                                                      time_at(span->second),
-                                                                      std::numeric_limits<double>::digits / 2);
-            if (-f > candidate.value) candidate = {-f, t};
+            const Peak found =
+                largest_score(scores, *span, [&](double t) { return minimum ? -value_at(t) : value_at(t); });
+            if (found.value > candidate.value) candidate = found;
         }
         return {minimum ? -candidate.value : candidate.value, candidate.time};
     }
@@ -360,17 +424,24 @@ private:
     // that bracket it, or, where no sample reaches it, at an extremum between
     // two samples that the bound says might; then by bisection.
     std::optional<double> crossing(const WatchLevel& w) {
+        // The level out of reach in this step (no sample, no crest between them).
+        if (request_.recorded[w.quantity] && score_bound(w.quantity, w.below) < (w.below ? -w.level : w.level))
+            return std::nullopt;
         auto reached = [&](double value) { return w.below ? value <= w.level : value >= w.level; };
         if (reached(sample_value(0, w.quantity))) return times_[0];
         const ExtremeTracker toward{w.quantity, w.below, nullptr};  // scores rise toward the level
         std::array<double, samples_per_step + 1> scores;
         for (int j = 0; j <= samples_per_step; ++j) scores[j] = toward.score(sample_value(j, w.quantity));
+        const double m3 = request_.recorded[w.quantity] ? third_bound_[w.quantity] : no_bound;
+        const bool some_sample_reaches = reached(sample_value(1, w.quantity)) || reached(sample_value(2, w.quantity));
+        if (!some_sample_reaches && !step_could_exceed(scores, m3, h_, toward.score(w.level))) return std::nullopt;
         for (int j = 1; j <= samples_per_step; ++j) {
             double before = times_[j - 1], after = times_[j];
             if (!reached(sample_value(j, w.quantity))) {
-                const auto span = search_span(scores, j - 1, third_bound_[w.quantity], h_, toward.score(w.level));
+                const auto span = search_span(scores, j - 1, m3, h_, toward.score(w.level));
                 if (!span) continue;
-                const Peak extremum = refine(toward, time_at(span->first), time_at(span->second));
+                const Peak extremum = largest_score(
+                    scores, *span, [&](double t) { return toward.score(value_at(t, w.quantity)); });
                 if (!reached(toward.score(extremum.value))) continue;
                 after = extremum.time;
             }
@@ -402,6 +473,8 @@ private:
     std::array<Observation, samples_per_step + 1>& samples_;
     PerQuantity<SampleValues>& values_;
     PerQuantity<double>& third_bound_;
+    PerQuantity<double>& highest_;
+    PerQuantity<double>& lowest_;
     PerQuantity<double>& curvature_;
     PerQuantity<double>& curvature_time_;
     PerQuantity<double>& third_;
