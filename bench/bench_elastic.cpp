@@ -155,9 +155,12 @@ double median(std::vector<double> v) {
     return v[v.size() / 2];
 }
 
-SimulationRequest request_for(const Config& c, const SwingModel& model) {
+// The records kept are the ones the job's outputs list, as plumb check keeps
+// them (reported_quantities).
+SimulationRequest request_for(const Config& c, const Job& job, const SwingModel& model) {
     SimulationRequest request;
     request.end_time = 60;
+    request.recorded = reported_quantities(job);
     request.integrator.method = c.method;
     request.integrator.iteration = c.iteration;
     request.integrator.relative_tolerance = c.relative_tolerance;
@@ -171,8 +174,9 @@ SimulationRequest request_for(const Config& c, const SwingModel& model) {
 }
 
 Outcome run(const Config& c, Ramps ramps, double damping_ratio, Reeving reeving, int repeats) {
-    const CountingModel model(make_swing_model(benchmark_job(c.model, ramps, damping_ratio, reeving)));
-    const SimulationRequest request = request_for(c, model);
+    const Job job = benchmark_job(c.model, ramps, damping_ratio, reeving);
+    const CountingModel model(make_swing_model(job));
+    const SimulationRequest request = request_for(c, job, model);
     Outcome out;
     std::vector<double> ms;
     try {
@@ -277,10 +281,12 @@ double interleaved_ratio(Ramps ramps, double damping_ratio, Reeving reeving, int
     const std::vector<Config> all = configs();
     const Config& rigid = all[0];
     const Config& elastic = all[1];
-    const auto rigid_model = make_swing_model(benchmark_job(rigid.model, ramps, damping_ratio, reeving));
-    const auto elastic_model = make_swing_model(benchmark_job(elastic.model, ramps, damping_ratio, reeving));
-    const SimulationRequest rigid_request = request_for(rigid, *rigid_model);
-    const SimulationRequest elastic_request = request_for(elastic, *elastic_model);
+    const Job rigid_job = benchmark_job(rigid.model, ramps, damping_ratio, reeving);
+    const Job elastic_job = benchmark_job(elastic.model, ramps, damping_ratio, reeving);
+    const auto rigid_model = make_swing_model(rigid_job);
+    const auto elastic_model = make_swing_model(elastic_job);
+    const SimulationRequest rigid_request = request_for(rigid, rigid_job, *rigid_model);
+    const SimulationRequest elastic_request = request_for(elastic, elastic_job, *elastic_model);
     std::vector<double> rigid_ms, elastic_ms;
     for (int i = 0; i < pairs; ++i) {
         double start = thread_cpu_ms();
