@@ -178,7 +178,9 @@ public:
 
     // Axial stiffness of the hoist rope at the hook for fall length L, N/m:
     // n^2 EA / (n L + lead length) (docs/model.md).
-    double hoist_rope_stiffness(double fall_length) const;
+    double hoist_rope_stiffness(double fall_length) const {
+        return hoist_falls_ea_ / (p_.parts_of_line * fall_length + p_.lead_length);
+    }
     double rigging_stiffness() const { return rigging_stiffness_; }  // legs EA / L2, N/m
     // Dashpot constants giving the damping ratio to each member's axial mode.
     double hoist_rope_damping(double fall_length) const;
@@ -211,8 +213,9 @@ private:
 
     ElasticParameters p_;
     const SupportTrajectory& support_;
-    // Constants of the right-hand side, worked out once: the rigging's k and
-    // c, and the unit vector the wind blows along.
+    // Constants of the right-hand side, worked out once: n^2 EA of the hoist
+    // rope, the rigging's k and c, and the unit vector the wind blows along.
+    double hoist_falls_ea_ = 0;
     double rigging_stiffness_ = 0;
     double rigging_damping_ = 0;
     Eigen::Vector3d wind_direction_ = Eigen::Vector3d::Zero();

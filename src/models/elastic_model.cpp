@@ -60,14 +60,11 @@ ElasticLiftModel::ElasticLiftModel(const ElasticParameters& p, const SupportTraj
     require_not_negative(p.lead_length, "lead length");
     require_not_negative(p.damping_ratio, "damping ratio");
     require_not_negative(p.wind.air_density, "air density");
+    const double n = p_.parts_of_line;
+    hoist_falls_ea_ = n * n * p_.hoist_rope.ea();
     rigging_stiffness_ = p_.rigging_legs * p_.rigging_rope.ea() / p_.rigging_length;
     rigging_damping_ = dashpot(rigging_stiffness_, p_.load_mass);
     wind_direction_ = Eigen::Vector3d(std::cos(p_.wind.direction), std::sin(p_.wind.direction), 0.0);
-}
-
-double ElasticLiftModel::hoist_rope_stiffness(double fall_length) const {
-    const double n = p_.parts_of_line;
-    return n * n * p_.hoist_rope.ea() / (n * fall_length + p_.lead_length);
 }
 
 // c = 2 zeta sqrt(k m): the dashpot that gives the member, carrying the mass
@@ -81,23 +78,6 @@ double ElasticLiftModel::hoist_rope_damping(double fall_length) const {
 }
 
 namespace elastic_detail {
-
-Member make_member(const Vec3& d, const Vec3& w, double rest_length, double rest_length_rate,
-                   double stiffness, double damping, bool slack) {
-    Member m;
-    m.d = d;
-    m.w = w;
-    m.length = d.norm();
-    // A member of zero length has no direction; it is slack then (stretch -L).
-    m.u = m.length > 0 ? Vec3(d / m.length) : Vec3(0, 0, -1);
-    m.stretch = m.length - rest_length;
-    m.stretch_rate = m.u.dot(w) - rest_length_rate;
-    m.stiffness = stiffness;
-    m.damping = damping;
-    m.slack = slack;
-    m.tension = slack ? 0.0 : stiffness * m.stretch + damping * m.stretch_rate;
-    return m;
-}
 
 double drag_factor(const DragData& drag, double air_density) {
     return 0.5 * air_density * drag.drag_coefficient * drag.projected_area;
