@@ -54,10 +54,13 @@ std::string elastic_job() { return base_job + elastic_keys; }
 
 }  // namespace
 
-TEST_CASE("analysis.model elastic selects the elastic model and BDF by default") {
+TEST_CASE("analysis.model elastic selects the elastic model on the Runge-Kutta pair at 1 um and 1 um/s by default") {
     const plumb::Job job = parse_job(elastic_job(), "job.yaml");
     CHECK(job.analysis.model == plumb::SwingModelChoice::elastic);
-    CHECK(job.analysis.integrator == plumb::IntegratorMethod::cvode_bdf);
+    CHECK(job.analysis.integrator == plumb::IntegratorMethod::runge_kutta);
+    // docs/job-file.md, analysis: rtol 1e-7 and, for the elastic model, 1e-6 m and m/s.
+    CHECK(job.analysis.relative_tolerance == 1e-7);
+    CHECK(job.analysis.absolute_tolerance == 1e-6);
     REQUIRE(job.rope);
     CHECK(job.rope->modulus == Approx(100e9));
     CHECK(job.rope->diameter == Approx(0.016));
@@ -68,6 +71,19 @@ TEST_CASE("analysis.model elastic selects the elastic model and BDF by default")
     CHECK_FALSE(d.modes);
     CHECK(d.validity == plumb::ValidityRule::always_valid);
     CHECK(d.static_loads.hoist_rope_tension == Approx(5200 * 9.80665));
+}
+
+TEST_CASE("an elastic job naming cvode-bdf keeps the CVODE default tolerances") {
+    const plumb::Job job = parse_job(base_job + "  integrator: cvode-bdf\n" + elastic_keys, "job.yaml");
+    CHECK(job.analysis.integrator == plumb::IntegratorMethod::cvode_bdf);
+    CHECK(job.analysis.relative_tolerance == 1e-8);
+    CHECK(job.analysis.absolute_tolerance == 1e-10);
+}
+
+TEST_CASE("an elastic job's own absolute tolerance replaces the default on the Runge-Kutta pair") {
+    const plumb::Job job = parse_job(base_job + "  absolute_tolerance: 1e-8\n" + elastic_keys, "job.yaml");
+    CHECK(job.analysis.integrator == plumb::IntegratorMethod::runge_kutta);
+    CHECK(job.analysis.absolute_tolerance == 1e-8);
 }
 
 TEST_CASE("a job without analysis.model runs the rigid model") {

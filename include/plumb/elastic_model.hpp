@@ -134,6 +134,7 @@ struct MemberObservation {
 // tensions).
 struct ElasticObservation {
     double time = 0;
+    SupportKinematics support;  // the suspension point's whole kinematics at this instant
     Eigen::Vector3d suspension_point = Eigen::Vector3d::Zero();
     Eigen::Vector3d suspension_velocity = Eigen::Vector3d::Zero();
     Eigen::Vector3d hook = Eigen::Vector3d::Zero();
@@ -177,11 +178,15 @@ public:
 
     // Axial stiffness of the hoist rope at the hook for fall length L, N/m:
     // n^2 EA / (n L + lead length) (docs/model.md).
-    double hoist_rope_stiffness(double fall_length) const;
-    double rigging_stiffness() const;  // legs EA / L2, N/m
+    double hoist_rope_stiffness(double fall_length) const {
+        return hoist_falls_ea_ / (p_.parts_of_line * fall_length + p_.lead_length);
+    }
+    double rigging_stiffness() const { return rigging_stiffness_; }  // legs EA / L2, N/m
     // Dashpot constants giving the damping ratio to each member's axial mode.
     double hoist_rope_damping(double fall_length) const;
-    double rigging_damping() const;
+    double rigging_damping() const { return rigging_damping_; }
+    // The hoist rope's dashpot for its stiffness k at the current fall length.
+    double hoist_rope_damping_at(double stiffness) const { return dashpot(stiffness, p_.hook_block_mass + p_.load_mass); }
 
     // initial_mode() reads the support at t = 0: runs start there.
 
@@ -199,9 +204,21 @@ public:
     const ElasticParameters& parameters() const { return p_; }
     const SupportTrajectory& support() const { return support_; }
 
+    // The wind's velocity at t: speed(t) along the fixed direction.
+    Eigen::Vector3d wind_velocity(double t) const { return p_.wind.speed(t) * wind_direction_; }
+
 private:
+    // c of a member of stiffness k carrying mass m from a fixed top.
+    double dashpot(double stiffness, double mass) const;
+
     ElasticParameters p_;
     const SupportTrajectory& support_;
+    // Constants of the right-hand side, worked out once: n^2 EA of the hoist
+    // rope, the rigging's k and c, and the unit vector the wind blows along.
+    double hoist_falls_ea_ = 0;
+    double rigging_stiffness_ = 0;
+    double rigging_damping_ = 0;
+    Eigen::Vector3d wind_direction_ = Eigen::Vector3d::Zero();
 };
 
 }  // namespace plumb

@@ -17,8 +17,16 @@
 
 namespace plumb {
 
+// How CVODE solves each implicit step: Newton iteration on the dense linear
+// solver with the system's Jacobian (for stiff problems), or fixed-point
+// (functional) iteration, which needs no Jacobian and converges only while
+// the step times the fastest rate stays below about one: the SUNDIALS guide's
+// recommended setting of Adams for non-stiff problems (CVodeCreate, notes).
+enum class NonlinearIteration { newton, fixed_point };
+
 struct IntegratorSettings {
     IntegratorMethod method = IntegratorMethod::runge_kutta;
+    NonlinearIteration iteration = NonlinearIteration::newton;  // CVODE only
     double relative_tolerance = 1e-8;
     // Absolute tolerances: by default each state component's own
     // (DynamicSystem::state_components()). absolute_tolerance, when set,

@@ -185,6 +185,10 @@ struct LiftOff {
 
 inline constexpr double cvode_default_relative_tolerance = 1e-8;
 inline constexpr double cvode_default_absolute_tolerance = 1e-10;
+// The elastic model's absolute tolerance on every state component, m and m/s:
+// its own (ElasticLiftModel::state_components) and a job file's default with
+// runge-kutta (docs/benchmark.md, "Elastic model against the rigid model").
+inline constexpr double elastic_default_absolute_tolerance = 1e-6;
 
 struct AnalysisSettings {
     std::optional<double> duration_after;  // s of free swing after the last move; none: automatic
@@ -193,8 +197,8 @@ struct AnalysisSettings {
     // each record on the demo cases (docs/benchmark.md, "Default tolerance").
     // A job file that names a CVODE integrator gets the cvode_default_* ones.
     double relative_tolerance = 1e-7;
-    double absolute_tolerance = 1e-9;      // rad and rad/s
-    IntegratorMethod integrator = IntegratorMethod::runge_kutta;  // elastic model: cvode_bdf unless given
+    double absolute_tolerance = 1e-9;      // rad and rad/s (elastic model: m and m/s)
+    IntegratorMethod integrator = IntegratorMethod::runge_kutta;
     SwingModelChoice model = SwingModelChoice::rigid;
 };
 

@@ -24,13 +24,26 @@ EventAction switch_slack_bit(std::uint64_t bit, int direction, Regime& r) {
 }  // namespace
 
 void ElasticLiftModel::events(double t, const Regime& r, std::span<const double> x, std::span<double> g) const {
-    const elastic_detail::Snapshot s = elastic_detail::snapshot(*this, t, r, x);
-    g[elastic_event::hoist_rope_stretch] = s.hoist_rope.stretch;
-    g[elastic_event::rigging_stretch] = s.rigging.stretch;
-    g[elastic_event::lift_off] =
-        s.load_on_ground ? upward_pull_on_load(s.rigging) - p_.load_mass * p_.gravity : inactive;
-    g[elastic_event::touch_down] =
-        p_.ground.present && !s.load_on_ground ? s.load.z() - p_.ground.load_resting_height : inactive;
+    if ((r.mode & elastic_mode::load_on_ground) != 0) {
+        // The lift-off function needs the rigging's tension: the whole snapshot.
+        const elastic_detail::Snapshot s = elastic_detail::snapshot(*this, t, r, x);
+        g[elastic_event::hoist_rope_stretch] = s.hoist_rope.stretch;
+        g[elastic_event::rigging_stretch] = s.rigging.stretch;
+        g[elastic_event::lift_off] = upward_pull_on_load(s.rigging) - p_.load_mass * p_.gravity;
+        g[elastic_event::touch_down] = inactive;
+        return;
+    }
+    // In the air only positions matter: the stretches as the snapshot forms
+    // them (length less unstretched length), without the forces, velocities
+    // and wind it would work out too. The integrators evaluate these at
+    // several points of every step.
+    using elastic_detail::Vec3;
+    const SupportKinematics k = support_.at(t, r.interval);
+    const Vec3 hook(x[0], x[1], x[2]), load(x[3], x[4], x[5]);
+    g[elastic_event::hoist_rope_stretch] = (hook - k.position).norm() - k.rope_length;
+    g[elastic_event::rigging_stretch] = (load - hook).norm() - p_.rigging_length;
+    g[elastic_event::lift_off] = inactive;
+    g[elastic_event::touch_down] = p_.ground.present ? load.z() - p_.ground.load_resting_height : inactive;
 }
 
 EventAction ElasticLiftModel::on_event(double /*t*/, std::span<const double> /*x*/, std::size_t index,

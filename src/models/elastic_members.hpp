@@ -26,8 +26,23 @@ struct Member {
     bool slack = false;
 };
 
-Member make_member(const Vec3& d, const Vec3& w, double rest_length, double rest_length_rate,
-                   double stiffness, double damping, bool slack);
+// Inline: it runs twice in every evaluation of the right-hand side.
+inline Member make_member(const Vec3& d, const Vec3& w, double rest_length, double rest_length_rate,
+                          double stiffness, double damping, bool slack) {
+    Member m;
+    m.d = d;
+    m.w = w;
+    m.length = d.norm();
+    // A member of zero length has no direction; it is slack then (stretch -L).
+    m.u = m.length > 0 ? Vec3(d / m.length) : Vec3(0, 0, -1);
+    m.stretch = m.length - rest_length;
+    m.stretch_rate = m.u.dot(w) - rest_length_rate;
+    m.stiffness = stiffness;
+    m.damping = damping;
+    m.slack = slack;
+    m.tension = slack ? 0.0 : stiffness * m.stretch + damping * m.stretch_rate;
+    return m;
+}
 
 // Everything the equations need at one (t, regime, x).
 struct Snapshot {

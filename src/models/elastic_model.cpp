@@ -6,6 +6,7 @@
 
 #include "elastic_members.hpp"
 #include "plumb/errors.hpp"
+#include "plumb/job.hpp"
 
 namespace plumb {
 
@@ -59,46 +60,24 @@ ElasticLiftModel::ElasticLiftModel(const ElasticParameters& p, const SupportTraj
     require_not_negative(p.lead_length, "lead length");
     require_not_negative(p.damping_ratio, "damping ratio");
     require_not_negative(p.wind.air_density, "air density");
-}
-
-double ElasticLiftModel::hoist_rope_stiffness(double fall_length) const {
     const double n = p_.parts_of_line;
-    return n * n * p_.hoist_rope.ea() / (n * fall_length + p_.lead_length);
-}
-
-double ElasticLiftModel::rigging_stiffness() const {
-    return p_.rigging_legs * p_.rigging_rope.ea() / p_.rigging_length;
+    hoist_falls_ea_ = n * n * p_.hoist_rope.ea();
+    rigging_stiffness_ = p_.rigging_legs * p_.rigging_rope.ea() / p_.rigging_length;
+    rigging_damping_ = dashpot(rigging_stiffness_, p_.load_mass);
+    wind_direction_ = Eigen::Vector3d(std::cos(p_.wind.direction), std::sin(p_.wind.direction), 0.0);
 }
 
 // c = 2 zeta sqrt(k m): the dashpot that gives the member, carrying the mass
 // that hangs on it from a fixed top, the damping ratio zeta.
-double ElasticLiftModel::hoist_rope_damping(double fall_length) const {
-    return 2.0 * p_.damping_ratio *
-           std::sqrt(hoist_rope_stiffness(fall_length) * (p_.hook_block_mass + p_.load_mass));
+double ElasticLiftModel::dashpot(double stiffness, double mass) const {
+    return p_.damping_ratio > 0 ? 2.0 * p_.damping_ratio * std::sqrt(stiffness * mass) : 0.0;
 }
 
-double ElasticLiftModel::rigging_damping() const {
-    return 2.0 * p_.damping_ratio * std::sqrt(rigging_stiffness() * p_.load_mass);
+double ElasticLiftModel::hoist_rope_damping(double fall_length) const {
+    return hoist_rope_damping_at(hoist_rope_stiffness(fall_length));
 }
 
 namespace elastic_detail {
-
-Member make_member(const Vec3& d, const Vec3& w, double rest_length, double rest_length_rate,
-                   double stiffness, double damping, bool slack) {
-    Member m;
-    m.d = d;
-    m.w = w;
-    m.length = d.norm();
-    // A member of zero length has no direction; it is slack then (stretch -L).
-    m.u = m.length > 0 ? Vec3(d / m.length) : Vec3(0, 0, -1);
-    m.stretch = m.length - rest_length;
-    m.stretch_rate = m.u.dot(w) - rest_length_rate;
-    m.stiffness = stiffness;
-    m.damping = damping;
-    m.slack = slack;
-    m.tension = slack ? 0.0 : stiffness * m.stretch + damping * m.stretch_rate;
-    return m;
-}
 
 double drag_factor(const DragData& drag, double air_density) {
     return 0.5 * air_density * drag.drag_coefficient * drag.projected_area;
@@ -112,13 +91,14 @@ Snapshot snapshot(const ElasticLiftModel& model, double t, const Regime& r, std:
     s.hook_velocity = Vec3(x[6], x[7], x[8]);
     s.load_velocity = Vec3(x[9], x[10], x[11]);
     const double L = s.support.rope_length;
+    const double k1 = model.hoist_rope_stiffness(L);
     s.hoist_rope = make_member(s.hook - s.support.position, s.hook_velocity - s.support.velocity, L,
-                               s.support.rope_speed, model.hoist_rope_stiffness(L),
-                               model.hoist_rope_damping(L), (r.mode & elastic_mode::hoist_rope_slack) != 0);
+                               s.support.rope_speed, k1, model.hoist_rope_damping_at(k1),
+                               (r.mode & elastic_mode::hoist_rope_slack) != 0);
     s.rigging = make_member(s.load - s.hook, s.load_velocity - s.hook_velocity, model.parameters().rigging_length,
                             0.0, model.rigging_stiffness(), model.rigging_damping(),
                             (r.mode & elastic_mode::rigging_slack) != 0);
-    s.wind = model.parameters().wind.velocity(t);
+    s.wind = model.wind_velocity(t);
     s.load_on_ground = (r.mode & elastic_mode::load_on_ground) != 0;
     return s;
 }
@@ -155,8 +135,8 @@ void ElasticLiftModel::derivatives(double t, const Regime& r, std::span<const do
 std::vector<StateComponent> ElasticLiftModel::state_components() const {
     // 1 um and 1 um/s: far below any clearance or stretch a lift plan reads,
     // and well above rounding of positions of tens of metres.
-    constexpr double position_tolerance = 1e-6;
-    constexpr double speed_tolerance = 1e-6;
+    constexpr double position_tolerance = elastic_default_absolute_tolerance;
+    constexpr double speed_tolerance = elastic_default_absolute_tolerance;
     std::vector<StateComponent> c;
     for (const char* body : {"hook", "load"})
         for (const char* axis : {"x", "y", "z"})
@@ -179,6 +159,7 @@ ElasticObservation ElasticLiftModel::observe(double t, const Regime& r, std::spa
     const Snapshot s = elastic_detail::snapshot(*this, t, r, x);
     ElasticObservation o;
     o.time = t;
+    o.support = s.support;
     o.suspension_point = s.support.position;
     o.suspension_velocity = s.support.velocity;
     o.hook = s.hook;

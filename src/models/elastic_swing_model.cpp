@@ -98,7 +98,7 @@ public:
         const ElasticObservation e = model_.observe(t, r, x);
         Observation o;
         o.time = t;
-        o.support = path_.at(t, r.interval);
+        o.support = e.support;  // the path evaluated once, by the model
         o.hook_block = e.hook - e.suspension_point;
         o.load_cg = e.load - e.suspension_point;
         o.member(MemberId::hoist_rope) = member_from(e.hoist_rope, e.hook_velocity - e.suspension_velocity);

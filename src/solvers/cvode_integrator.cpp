@@ -8,11 +8,13 @@
 #include <nvector/nvector_serial.h>
 #include <sunlinsol/sunlinsol_dense.h>
 #include <sunmatrix/sunmatrix_dense.h>
+#include <sunnonlinsol/sunnonlinsol_fixedpoint.h>
 
 #include <algorithm>
 #include <cmath>
 #include <cstdlib>
 #include <exception>
+#include <optional>
 #include <string>
 
 #include "integrators_impl.hpp"
@@ -44,6 +46,7 @@ using SerialVector = Owned<N_Vector, N_VDestroy>;
 using DenseMatrix = Owned<SUNMatrix, SUNMatDestroy>;
 using DenseLinearSolver = Owned<SUNLinearSolver, [](SUNLinearSolver s) { SUNLinSolFree(s); }>;
 using CvodeMemory = Owned<void*, [](void* m) { CVodeFree(&m); }>;
+using NonlinearSolver = Owned<SUNNonlinearSolver, [](SUNNonlinearSolver s) { SUNNonlinSolFree(s); }>;
 
 SUNContext new_context() {
     SUNContext ctx = nullptr;
@@ -149,11 +152,11 @@ private:
 
 }  // namespace
 
-// Everything CVODE needs for one state size and method, made once and reused
-// by every run of that size and method (CVodeReInit starts a new run).
+// Everything CVODE needs for one state size, method and iteration, made once
+// and reused by every run of the same (CVodeReInit starts a new run).
 struct CvodeWorkspace {
-    CvodeWorkspace(std::size_t n, IntegratorMethod m)
-        : size(n), method(m), context(new_context(), "SUNContext_Create"),
+    CvodeWorkspace(std::size_t n, IntegratorMethod m, NonlinearIteration i)
+        : size(n), method(m), iteration(i), context(new_context(), "SUNContext_Create"),
           y(N_VNew_Serial(static_cast<sunindextype>(n), context.get()), "N_VNew_Serial"),
           interpolated(N_VNew_Serial(static_cast<sunindextype>(n), context.get()), "N_VNew_Serial"),
           tolerance(N_VNew_Serial(static_cast<sunindextype>(n), context.get()), "N_VNew_Serial"),
@@ -165,12 +168,19 @@ struct CvodeWorkspace {
           step(cvode.get(), interpolated.get(), n) {
         data.size = n;
         data.jacobian.resize(n * n);
+        // Anderson acceleration off (m = 0): the plain functional iteration.
+        if (i == NonlinearIteration::fixed_point)
+            fixed_point.emplace(SUNNonlinSol_FixedPoint(y.get(), 0, context.get()), "SUNNonlinSol_FixedPoint");
     }
 
     std::size_t size;
     IntegratorMethod method;
+    NonlinearIteration iteration;
     SundialsContext context;
     SerialVector y, interpolated, tolerance;
+    // Fixed-point iteration only; declared before the CVODE memory that
+    // refers to it, so that it is freed after it.
+    std::optional<NonlinearSolver> fixed_point;
     CvodeMemory cvode;
     DenseMatrix matrix;
     DenseLinearSolver solver;
@@ -180,10 +190,11 @@ struct CvodeWorkspace {
     bool initialised = false;
 };
 
-void prepare_cvode_workspace(std::unique_ptr<CvodeWorkspace>& workspace, std::size_t size, IntegratorMethod method) {
-    if (!workspace || workspace->size != size || workspace->method != method) {
+void prepare_cvode_workspace(std::unique_ptr<CvodeWorkspace>& workspace, std::size_t size, IntegratorMethod method,
+                             NonlinearIteration iteration) {
+    if (!workspace || workspace->size != size || workspace->method != method || workspace->iteration != iteration) {
         workspace.reset();  // free the old one first
-        workspace = std::make_unique<CvodeWorkspace>(size, method);
+        workspace = std::make_unique<CvodeWorkspace>(size, method, iteration);
     }
 }
 
@@ -210,16 +221,22 @@ public:
             check(CVodeSetErrHandlerFn(mem_, keep_error_message, &w_.data), "CVodeSetErrHandlerFn");
             check(CVodeInit(mem_, right_hand_side, t_, w_.y.get()), "CVodeInit");
             check(CVodeSetUserData(mem_, &w_.data), "CVodeSetUserData");
-            check(CVodeSetLinearSolver(mem_, w_.solver.get(), w_.matrix.get()), "CVodeSetLinearSolver");
+            if (w_.fixed_point) {
+                check(CVodeSetNonlinearSolver(mem_, w_.fixed_point->get()), "CVodeSetNonlinearSolver");
+            } else {
+                check(CVodeSetLinearSolver(mem_, w_.solver.get(), w_.matrix.get()), "CVodeSetLinearSolver");
+            }
             w_.initialised = true;
         } else {
             check(CVodeReInit(mem_, t_, w_.y.get()), "CVodeReInit");
         }
         set_tolerances(atol);
-        // The analytic Jacobian when the system has one (asked once, at the
-        // start); otherwise CVODE's own difference quotients.
-        const bool analytic = system.jacobian(t_, w_.data.regime, x0, w_.data.jacobian);
-        check(CVodeSetJacFn(mem_, analytic ? jacobian : nullptr), "CVodeSetJacFn");
+        // Newton iteration: the analytic Jacobian when the system has one
+        // (asked once, at the start); otherwise CVODE's own difference quotients.
+        if (!w_.fixed_point) {
+            const bool analytic = system.jacobian(t_, w_.data.regime, x0, w_.data.jacobian);
+            check(CVodeSetJacFn(mem_, analytic ? jacobian : nullptr), "CVodeSetJacFn");
+        }
         check(CVodeRootInit(mem_, static_cast<int>(events_), events_ > 0 ? event_functions : nullptr), "CVodeRootInit");
 
         for (std::size_t k = 0; k + 1 < breaks.size(); ++k) {

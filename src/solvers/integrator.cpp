@@ -52,7 +52,7 @@ IntegrationStats Integrator::run(const DynamicSystem& system, std::span<const do
             return detail::integrate_runge_kutta(system, x0, breaks, settings, tolerance, sink);
         case IntegratorMethod::cvode_adams:
         case IntegratorMethod::cvode_bdf:
-            detail::prepare_cvode_workspace(cvode_, x0.size(), settings.method);
+            detail::prepare_cvode_workspace(cvode_, x0.size(), settings.method, settings.iteration);
             return detail::integrate_cvode(*cvode_, system, x0, breaks, settings, tolerance, sink);
     }
     throw NumericalError("unknown integrator method", t0);

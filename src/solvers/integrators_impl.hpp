@@ -25,8 +25,9 @@ IntegrationStats integrate_cvode(CvodeWorkspace& workspace, const DynamicSystem&
                                  const IntegratorSettings& settings, const std::vector<double>& absolute_tolerance,
                                  StepSink& sink);
 
-// A workspace for this system and method: the given one when it fits, else a new one.
-void prepare_cvode_workspace(std::unique_ptr<CvodeWorkspace>& workspace, std::size_t size, IntegratorMethod method);
+// A workspace for this system, method and iteration: the given one when it fits, else a new one.
+void prepare_cvode_workspace(std::unique_ptr<CvodeWorkspace>& workspace, std::size_t size, IntegratorMethod method,
+                             NonlinearIteration iteration);
 
 // An exception the system threw, as the error plumb reports: a plumb Error
 // keeps its type; anything else becomes a NumericalError at the time reached.
