@@ -153,7 +153,7 @@ struct SimulationWorkspace::Buffers {
     PerQuantity<double> third_bound{};     // the bound on |third derivative| over this step
     PerQuantity<double> highest{}, lowest{};  // bounds of the quantity over this step (step_reach())
     PerQuantity<double> curvature{};       // second derivative estimated on the previous step ...
-    PerQuantity<double> curvature_time{};  // ... at this time (its midpoint)
+    double curvature_time = 0;             // ... at this time (its midpoint; the same for every quantity)
     PerQuantity<double> third{};           // |third derivative| estimated between the previous two steps
     Buffers() { add_trackers(all_whole_run, all_residual, all_lift_off); }
 
@@ -228,7 +228,7 @@ public:
         times_[0] = step.t_begin;
         h_ = step.t_end - step.t_begin;
         const double per_half_step_squared = 4 / (h_ * h_);
-        const double per_interval = recorded_.empty() ? 0.0 : 1 / (times_[1] - curvature_time_[recorded_.front()]);
+        const double per_interval = 1 / (times_[1] - curvature_time_);
         for (Quantity q : recorded_) {
             for (int j = 0; j <= samples_per_step; ++j) values_[q][j] = quantity_value(samples_[j], q);
             third_bound_[q] = third_derivative_bound(q, per_half_step_squared, per_interval, !step_seen_);
@@ -237,6 +237,7 @@ public:
             highest_[q] = std::max({v[0], v[1], v[2]}) + reach;
             lowest_[q] = std::min({v[0], v[1], v[2]}) - reach;
         }
+        curvature_time_ = times_[1];
         step_seen_ = true;
         // While the load rests on the ground the ropes carry less than its
         // weight by design: least values and slack crossings count from lift-off.
@@ -293,13 +294,11 @@ private:
     double third_derivative_bound(Quantity q, double per_half_step_squared, double per_interval, bool first) {
         const SampleValues& v = values_[q];
         const double curvature = (v[0] - 2 * v[1] + v[2]) * per_half_step_squared;
-        const double at = times_[1];
         const double third = first ? std::numeric_limits<double>::infinity()
                                    : std::fabs(curvature - curvature_[q]) * per_interval;
         const double m3 = derivative_safety * std::max(third, third_[q]);
         third_[q] = first ? 0.0 : third;
         curvature_[q] = curvature;
-        curvature_time_[q] = at;
         return std::isnan(m3) ? std::numeric_limits<double>::infinity() : m3;
     }
 
@@ -488,7 +487,7 @@ private:
     PerQuantity<double>& highest_;
     PerQuantity<double>& lowest_;
     PerQuantity<double>& curvature_;
-    PerQuantity<double>& curvature_time_;
+    double& curvature_time_;
     PerQuantity<double>& third_;
     const std::vector<Quantity>& recorded_;
     std::vector<ExtremeTracker>& whole_run_;
