@@ -187,6 +187,20 @@ public:
     double rigging_damping() const { return rigging_damping_; }
     // The hoist rope's dashpot for its stiffness k at the current fall length.
     double hoist_rope_damping_at(double stiffness) const { return dashpot(stiffness, p_.hook_block_mass + p_.load_mass); }
+    // The hoist rope's k and c at fall length L on integration interval
+    // `interval`: worked out once where the hoist channel rests for the whole
+    // interval (the same numbers, without a division and a square root in
+    // every evaluation of the right-hand side).
+    struct Spring {
+        double stiffness = 0;
+        double damping = 0;
+    };
+    Spring hoist_rope_spring(std::size_t interval, double fall_length) const {
+        if (interval < fixed_fall_spring_.size() && fixed_fall_spring_[interval].stiffness > 0)
+            return fixed_fall_spring_[interval];
+        const double k = hoist_rope_stiffness(fall_length);
+        return {k, hoist_rope_damping_at(k)};
+    }
 
     // initial_mode() reads the support at t = 0: runs start there.
 
@@ -219,6 +233,9 @@ private:
     double rigging_stiffness_ = 0;
     double rigging_damping_ = 0;
     Eigen::Vector3d wind_direction_ = Eigen::Vector3d::Zero();
+    // Per interval of the support's breaks: the hoist rope's spring where the
+    // fall length stays fixed over the interval, else stiffness 0.
+    std::vector<Spring> fixed_fall_spring_;
 };
 
 }  // namespace plumb

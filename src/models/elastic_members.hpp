@@ -34,7 +34,7 @@ inline Member make_member(const Vec3& d, const Vec3& w, double rest_length, doub
     m.w = w;
     m.length = d.norm();
     // A member of zero length has no direction; it is slack then (stretch -L).
-    m.u = m.length > 0 ? Vec3(d / m.length) : Vec3(0, 0, -1);
+    m.u = m.length > 0 ? Vec3(d * (1 / m.length)) : Vec3(0, 0, -1);  // one division, not three
     m.stretch = m.length - rest_length;
     m.stretch_rate = m.u.dot(w) - rest_length_rate;
     m.stiffness = stiffness;

@@ -65,6 +65,21 @@ ElasticLiftModel::ElasticLiftModel(const ElasticParameters& p, const SupportTraj
     rigging_stiffness_ = p_.rigging_legs * p_.rigging_rope.ea() / p_.rigging_length;
     rigging_damping_ = dashpot(rigging_stiffness_, p_.load_mass);
     wind_direction_ = Eigen::Vector3d(std::cos(p_.wind.direction), std::sin(p_.wind.direction), 0.0);
+    // The fall length is fixed on an interval when the hoist channel starts it
+    // at rest and ends it without acceleration: its piece there is a cubic in
+    // time whose speed and acceleration start at zero, so zero end
+    // acceleration means zero jerk too.
+    const std::vector<double>& breaks = support_.breaks();
+    fixed_fall_spring_.assign(breaks.size(), Spring{});
+    for (std::size_t k = 0; k < breaks.size(); ++k) {
+        const double end = k + 1 < breaks.size() ? breaks[k + 1] : breaks[k] + 1;
+        const SupportKinematics a = support_.at(breaks[k], k), b = support_.at(end, k);
+        if (a.rope_speed == 0 && a.rope_acceleration == 0 && b.rope_acceleration == 0 &&
+            b.rope_length == a.rope_length) {
+            const double stiffness = hoist_rope_stiffness(a.rope_length);
+            fixed_fall_spring_[k] = {stiffness, hoist_rope_damping_at(stiffness)};
+        }
+    }
 }
 
 // c = 2 zeta sqrt(k m): the dashpot that gives the member, carrying the mass
@@ -91,9 +106,9 @@ Snapshot snapshot(const ElasticLiftModel& model, double t, const Regime& r, std:
     s.hook_velocity = Vec3(x[6], x[7], x[8]);
     s.load_velocity = Vec3(x[9], x[10], x[11]);
     const double L = s.support.rope_length;
-    const double k1 = model.hoist_rope_stiffness(L);
+    const ElasticLiftModel::Spring hoist = model.hoist_rope_spring(r.interval, L);
     s.hoist_rope = make_member(s.hook - s.support.position, s.hook_velocity - s.support.velocity, L,
-                               s.support.rope_speed, k1, model.hoist_rope_damping_at(k1),
+                               s.support.rope_speed, hoist.stiffness, hoist.damping,
                                (r.mode & elastic_mode::hoist_rope_slack) != 0);
     s.rigging = make_member(s.load - s.hook, s.load_velocity - s.hook_velocity, model.parameters().rigging_length,
                             0.0, model.rigging_stiffness(), model.rigging_damping(),
