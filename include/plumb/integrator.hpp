@@ -27,6 +27,13 @@ enum class NonlinearIteration { newton, fixed_point };
 struct IntegratorSettings {
     IntegratorMethod method = IntegratorMethod::runge_kutta;
     NonlinearIteration iteration = NonlinearIteration::newton;  // CVODE only
+    // CVODE only: the highest order the method may use; 0: the method's own
+    // (BDF 5, Adams 12). BDF of order 1 or 2 is A-stable, orders 3 to 5 are
+    // not (Dahlquist's second barrier, Hairer & Wanner, ODE II, V.1): on
+    // lightly damped fast modes, such as a steel rope's axial bounce, only
+    // orders up to 2 step over the mode without resolving it
+    // (docs/benchmark.md, "Elastic model against the rigid model").
+    int max_order = 0;
     double relative_tolerance = 1e-8;
     // Absolute tolerances: by default each state component's own
     // (DynamicSystem::state_components()). absolute_tolerance, when set,
@@ -75,6 +82,7 @@ struct IntegrationStats {
     long rhs_evaluations = 0;
     long restarts = 0;  // one per interval and one per event that restarts
     long events = 0;
+    int highest_order = 0;  // CVODE: the highest order any step used; 0 for the Runge-Kutta pair
 };
 
 namespace detail {

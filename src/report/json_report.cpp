@@ -324,6 +324,7 @@ std::string format_json(const LiftAssessment& a, UnitSystem u) {
           {"rejected_steps", st.rejected_steps},
           {"rhs_evaluations", st.rhs_evaluations},
           {"restarts", st.restarts},
+          {"highest_order", st.highest_order},  // CVODE; 0 for the Runge-Kutta pair
           {"trace_rows", s.trace.size()}}},
     };
     return doc.dump(2) + "\n";

@@ -323,7 +323,9 @@ std::string statistics_line(const LiftAssessment& a) {
     return "Integrator: " + std::string(integrator_name(an.integrator)) + ", " +
            std::to_string(st.steps) + " steps, " + std::to_string(st.rejected_steps) +
            " rejected, " + std::to_string(st.rhs_evaluations) + " right-hand-side evaluations, " +
-           std::to_string(st.restarts) + " restarts; relative tolerance " +
+           std::to_string(st.restarts) + " restarts" +
+           (st.highest_order > 0 ? ", highest order used " + std::to_string(st.highest_order) : std::string()) +
+           "; relative tolerance " +
            num(an.relative_tolerance) + ", absolute tolerance " + num(an.absolute_tolerance) + ".";
 }
 

@@ -15,6 +15,7 @@
 #include <cstdlib>
 #include <exception>
 #include <optional>
+#include <stdexcept>
 #include <string>
 
 #include "integrators_impl.hpp"
@@ -231,6 +232,12 @@ public:
             check(CVodeReInit(mem_, t_, w_.y.get()), "CVodeReInit");
         }
         set_tolerances(atol);
+        // Every run sets it: the workspace may come from a run with another cap.
+        const int own_order = w_.method == IntegratorMethod::cvode_bdf ? 5 : 12;
+        if (settings_.max_order < 0 || settings_.max_order > own_order)
+            throw UsageError("IntegratorSettings::max_order must lie between 1 and " +
+                             std::to_string(own_order) + " (0: the method's own)");
+        check(CVodeSetMaxOrd(mem_, settings_.max_order > 0 ? settings_.max_order : own_order), "CVodeSetMaxOrd");
         // Newton iteration: the analytic Jacobian when the system has one
         // (asked once, at the start); otherwise CVODE's own difference quotients.
         if (!w_.fixed_point) {
@@ -294,6 +301,9 @@ private:
                 if (CVodeGetCurrentTime(mem_, &reached) == CV_SUCCESS) t_ = std::max(t_before, reached);
             }
             check(flag, "CVode");
+            int order = 0;
+            check(CVodeGetLastOrder(mem_, &order), "CVodeGetLastOrder");
+            stats_.highest_order = std::max(stats_.highest_order, order);
             // One-step mode has no step budget per call: stop a solver that only
             // creeps towards a point it cannot pass (a singularity, say).
             if (t_ - t_before < 1e-12 * std::max(1.0, std::fabs(t_))) {
