@@ -13,23 +13,24 @@ namespace plumb::elastic_detail {
 using Vec3 = Eigen::Vector3d;
 
 // One member from end a (upper) to end b (lower): d = p_b - p_a, w = v_b - v_a.
+// Set whole by set_member(); no defaults, as it is filled in place in every
+// evaluation of the right-hand side.
 struct Member {
-    Vec3 d = Vec3::Zero();
-    Vec3 w = Vec3::Zero();
-    double length = 0;        // l = |d|
-    Vec3 u = Vec3::Zero();    // d / l: the direction the member pulls end a toward b
-    double stretch = 0;       // e = l - L
-    double stretch_rate = 0;  // de/dt = u . w - dL/dt
-    double stiffness = 0;     // k
-    double damping = 0;       // c
-    double tension = 0;       // T = k e + c de/dt when taut, 0 when slack
-    bool slack = false;
+    Vec3 d;
+    Vec3 w;
+    double length;        // l = |d|
+    Vec3 u;               // d / l: the direction the member pulls end a toward b
+    double stretch;       // e = l - L
+    double stretch_rate;  // de/dt = u . w - dL/dt
+    double stiffness;     // k
+    double damping;       // c
+    double tension;       // T = k e + c de/dt when taut, 0 when slack
+    bool slack;
 };
 
 // Inline: it runs twice in every evaluation of the right-hand side.
-inline Member make_member(const Vec3& d, const Vec3& w, double rest_length, double rest_length_rate,
-                          double stiffness, double damping, bool slack) {
-    Member m;
+inline void set_member(Member& m, const Vec3& d, const Vec3& w, double rest_length, double rest_length_rate,
+                       double stiffness, double damping, bool slack) {
     m.d = d;
     m.w = w;
     m.length = d.norm();
@@ -41,17 +42,17 @@ inline Member make_member(const Vec3& d, const Vec3& w, double rest_length, doub
     m.damping = damping;
     m.slack = slack;
     m.tension = slack ? 0.0 : stiffness * m.stretch + damping * m.stretch_rate;
-    return m;
 }
 
-// Everything the equations need at one (t, regime, x).
+// Everything the equations need at one (t, regime, x); snapshot() sets every field.
 struct Snapshot {
+    explicit Snapshot(const SupportKinematics& k) : support(k) {}
     SupportKinematics support;
     Vec3 hook, load, hook_velocity, load_velocity;
     Member hoist_rope;  // suspension point -> hook block
     Member rigging;     // hook block -> load CG
-    Vec3 wind = Vec3::Zero();
-    bool load_on_ground = false;
+    Vec3 wind;
+    bool load_on_ground;
 };
 
 Snapshot snapshot(const ElasticLiftModel& model, double t, const Regime& r, std::span<const double> x);

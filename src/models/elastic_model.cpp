@@ -99,20 +99,17 @@ double drag_factor(const DragData& drag, double air_density) {
 }
 
 Snapshot snapshot(const ElasticLiftModel& model, double t, const Regime& r, std::span<const double> x) {
-    Snapshot s;
-    s.support = model.support().at(t, r.interval);
+    Snapshot s(model.support().at(t, r.interval));  // the path's kinematics built in place
     s.hook = Vec3(x[0], x[1], x[2]);
     s.load = Vec3(x[3], x[4], x[5]);
     s.hook_velocity = Vec3(x[6], x[7], x[8]);
     s.load_velocity = Vec3(x[9], x[10], x[11]);
     const double L = s.support.rope_length;
     const ElasticLiftModel::Spring hoist = model.hoist_rope_spring(r.interval, L);
-    s.hoist_rope = make_member(s.hook - s.support.position, s.hook_velocity - s.support.velocity, L,
-                               s.support.rope_speed, hoist.stiffness, hoist.damping,
-                               (r.mode & elastic_mode::hoist_rope_slack) != 0);
-    s.rigging = make_member(s.load - s.hook, s.load_velocity - s.hook_velocity, model.parameters().rigging_length,
-                            0.0, model.rigging_stiffness(), model.rigging_damping(),
-                            (r.mode & elastic_mode::rigging_slack) != 0);
+    set_member(s.hoist_rope, s.hook - s.support.position, s.hook_velocity - s.support.velocity, L,
+               s.support.rope_speed, hoist.stiffness, hoist.damping, (r.mode & elastic_mode::hoist_rope_slack) != 0);
+    set_member(s.rigging, s.load - s.hook, s.load_velocity - s.hook_velocity, model.parameters().rigging_length, 0.0,
+               model.rigging_stiffness(), model.rigging_damping(), (r.mode & elastic_mode::rigging_slack) != 0);
     s.wind = model.wind_velocity(t);
     s.load_on_ground = (r.mode & elastic_mode::load_on_ground) != 0;
     return s;

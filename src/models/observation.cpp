@@ -19,7 +19,9 @@ Member Member::in_plane(double length, double angle, double sin_angle, double co
 Member Member::along(const Eigen::Vector3d& vector, const Eigen::Vector3d& velocity) {
     Member m;
     m.vector_ = vector;
-    const double rho = std::hypot(vector.x(), vector.y());
+    // Lengths of metres: x^2 + y^2 neither overflows nor underflows, and the
+    // square root costs less than hypot.
+    const double rho = std::sqrt(vector.x() * vector.x() + vector.y() * vector.y());
     const double sign = std::signbit(vector.x()) ? -1.0 : 1.0;
     m.angle_ = sign * std::atan2(rho, -vector.z());
     const double squared_length = vector.squaredNorm();
