@@ -1,6 +1,8 @@
 // Members and support kinematics of an Observation (observation.hpp).
 #include "plumb/observation.hpp"
 
+#include "plumb/arc_tangent.hpp"
+
 namespace plumb {
 
 Member Member::in_plane(double length, double angle, double sin_angle, double cos_angle,
@@ -23,7 +25,7 @@ Member Member::along(const Eigen::Vector3d& vector, const Eigen::Vector3d& veloc
     // square root costs less than hypot.
     const double rho = std::sqrt(vector.x() * vector.x() + vector.y() * vector.y());
     const double sign = std::signbit(vector.x()) ? -1.0 : 1.0;
-    m.angle_ = sign * std::atan2(rho, -vector.z());
+    m.angle_ = sign * arc_tangent(rho, -vector.z());
     const double squared_length = vector.squaredNorm();
     if (squared_length == 0) return m;
     if (rho > 0) {

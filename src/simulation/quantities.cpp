@@ -3,6 +3,8 @@
 
 #include <cmath>
 
+#include "plumb/arc_tangent.hpp"
+
 namespace plumb {
 
 namespace {
@@ -35,7 +37,7 @@ double jib_component(const Member& m, const SupportKinematics& s, bool tangentia
     const double c = std::cos(*s.slew_angle), sn = std::sin(*s.slew_angle);
     const Eigen::Vector3d& v = m.vector();
     const double along = tangential ? -sn * v.x() + c * v.y() : c * v.x() + sn * v.y();
-    return std::atan2(along, -v.z());
+    return arc_tangent(along, -v.z());
 }
 
 // An angle that only a slewing lift reports: a series (records series), or a
@@ -51,7 +53,7 @@ constexpr QuantitySpec slewing_component(Quantity id, const char* key, const cha
 // or +y. For a lift on the travel axes, along and across the travel.
 double axis_component(const Member& m, bool along_y) {
     const Eigen::Vector3d& v = m.vector();
-    return std::atan2(along_y ? v.y() : v.x(), -v.z());
+    return arc_tangent(along_y ? v.y() : v.x(), -v.z());
 }
 
 // A swing component that only a 3-D lift on the travel axes reports.
