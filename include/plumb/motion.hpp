@@ -59,7 +59,15 @@ struct MotionPiece {
     SupportState at_start;
     double jerk = 0;  // m/s^3
 
-    SupportState at(double t) const;
+    // Inline: the elastic model reads every channel in every right-hand side.
+    SupportState at(double t) const {
+        const double dt = std::min(t, end) - start;
+        const double a0 = at_start.acceleration;
+        const bool at_rest = a0 == 0 && jerk == 0 && at_start.speed == 0;  // also on the endless last piece
+        if (dt <= 0 || at_rest) return at_start;
+        return {at_start.position + dt * (at_start.speed + dt * (a0 / 2 + dt * jerk / 6)),
+                at_start.speed + dt * (a0 + dt * jerk / 2), a0 + dt * jerk};
+    }
     // The acceleration alone: all the equations of motion need, on their hot path.
     double acceleration_at(double t) const { return at_start.acceleration + (std::min(t, end) - start) * jerk; }
 };

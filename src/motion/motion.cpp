@@ -117,15 +117,6 @@ private:
 
 }  // namespace
 
-SupportState MotionPiece::at(double t) const {
-    const double dt = std::min(t, end) - start;
-    const double a0 = at_start.acceleration;
-    const bool at_rest = a0 == 0 && jerk == 0 && at_start.speed == 0;  // also on the endless last piece
-    if (dt <= 0 || at_rest) return at_start;
-    return {at_start.position + dt * (at_start.speed + dt * (a0 / 2 + dt * jerk / 6)),
-            at_start.speed + dt * (a0 + dt * jerk / 2), a0 + dt * jerk};
-}
-
 SupportMotion SupportMotion::from_moves(const std::vector<Move>& moves) {
     PieceBuilder builder;
     double position = 0;
