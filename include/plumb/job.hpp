@@ -189,9 +189,6 @@ inline constexpr double cvode_default_absolute_tolerance = 1e-10;
 // its own (ElasticLiftModel::state_components) and a job file's default with
 // runge-kutta (docs/benchmark.md, "Elastic model against the rigid model").
 inline constexpr double elastic_default_absolute_tolerance = 1e-6;
-// The highest order of CVODE BDF with the elastic model: 2, the A-stable
-// orders only (IntegratorSettings::max_order; docs/benchmark.md).
-inline constexpr int elastic_bdf_highest_order = 2;
 
 struct AnalysisSettings {
     std::optional<double> duration_after;  // s of free swing after the last move; none: automatic

@@ -45,6 +45,10 @@ struct ModelDescription {
     // s, the period of everything hanging bouncing on the ropes at the start
     // (a model with elastic ropes); the lift-off records look this long past lift-off.
     std::optional<double> vertical_bounce_period;
+    // The highest order CVODE BDF may use on this model (IntegratorSettings::
+    // max_order); none: BDF's own. A model with fast, lightly damped modes
+    // holds BDF to its A-stable orders 1 and 2.
+    std::optional<int> bdf_highest_order;
 };
 
 // What the integrator sees of a model is a DynamicSystem (system.hpp); the

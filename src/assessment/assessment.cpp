@@ -321,13 +321,8 @@ LiftPrediction predict_in(const Job& job, const SwingModel& model, const ModelDe
     request.integrator.method = job.analysis.integrator;
     request.integrator.relative_tolerance = job.analysis.relative_tolerance;
     request.integrator.absolute_tolerance = job.analysis.absolute_tolerance;
-    // The elastic ropes' axial modes are fast and lightly damped (eigenvalues
-    // near the imaginary axis), where BDF of orders 3 to 5 is not stable: at
-    // loose tolerances it misstated the swing by up to 47 % in the benchmark.
-    // Orders 1 and 2 are A-stable and step over those modes (docs/benchmark.md,
-    // "Elastic model against the rigid model").
-    if (job.analysis.model == SwingModelChoice::elastic && job.analysis.integrator == IntegratorMethod::cvode_bdf)
-        request.integrator.max_order = elastic_bdf_highest_order;
+    if (job.analysis.integrator == IntegratorMethod::cvode_bdf)
+        request.integrator.max_order = description.bdf_highest_order.value_or(0);  // the model's cap, if any
     request.output_step = output_step;
     request.watch = watch;
     if (!job.obstacles.zones.empty()) request.obstacles = &job.obstacles;
