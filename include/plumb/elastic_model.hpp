@@ -228,11 +228,18 @@ private:
     ElasticParameters p_;
     const SupportTrajectory& support_;
     // Constants of the right-hand side, worked out once: n^2 EA of the hoist
-    // rope, the rigging's k and c, and the unit vector the wind blows along.
+    // rope, the rigging's k and c, the unit vector the wind blows along, the
+    // drag factors and the inverse masses.
     double hoist_falls_ea_ = 0;
     double rigging_stiffness_ = 0;
     double rigging_damping_ = 0;
     Eigen::Vector3d wind_direction_ = Eigen::Vector3d::Zero();
+    // 1/2 rho Cd A of each body, and 1 / mass: multiplications in the
+    // right-hand side where divisions were.
+    double hook_block_drag_factor_ = 0;
+    double load_drag_factor_ = 0;
+    double per_hook_block_mass_ = 0;
+    double per_load_mass_ = 0;
     // Per interval of the support's breaks: the hoist rope's spring where the
     // fall length stays fixed over the interval, else stiffness 0.
     std::vector<Spring> fixed_fall_spring_;

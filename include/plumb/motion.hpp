@@ -155,11 +155,9 @@ public:
 
     const SupportMotion& channel(Channel c) const { return channels_[c]; }
     // One channel on interval k of the merged breaks (one table lookup: the hot path).
-    SupportState state(Channel c, double t, std::size_t interval) const {
-        return channels_[c].at(t, piece_[c][interval]);
-    }
+    SupportState state(Channel c, double t, std::size_t interval) const { return pieces_[interval][c].at(t); }
     double acceleration(Channel c, double t, std::size_t interval) const {
-        return channels_[c].acceleration(t, piece_[c][interval]);
+        return pieces_[interval][c].acceleration_at(t);
     }
 
 private:
@@ -168,7 +166,10 @@ private:
     bool slewing_ = false;
     JibStart jib_;
     std::vector<double> breaks_;
-    std::array<std::vector<std::size_t>, channel_count> piece_;  // piece_[c][k]: channel c's piece on interval k
+    // pieces_[k][c]: channel c's piece on interval k, copied so that the
+    // pieces of one interval lie together (every right-hand side of the
+    // elastic model reads all of them).
+    std::vector<std::array<MotionPiece, channel_count>> pieces_;
 };
 
 }  // namespace plumb

@@ -65,6 +65,10 @@ ElasticLiftModel::ElasticLiftModel(const ElasticParameters& p, const SupportTraj
     rigging_stiffness_ = p_.rigging_legs * p_.rigging_rope.ea() / p_.rigging_length;
     rigging_damping_ = dashpot(rigging_stiffness_, p_.load_mass);
     wind_direction_ = Eigen::Vector3d(std::cos(p_.wind.direction), std::sin(p_.wind.direction), 0.0);
+    hook_block_drag_factor_ = elastic_detail::drag_factor(p_.hook_block_drag, p_.wind.air_density);
+    load_drag_factor_ = elastic_detail::drag_factor(p_.load_drag, p_.wind.air_density);
+    per_hook_block_mass_ = 1 / p_.hook_block_mass;
+    per_load_mass_ = 1 / p_.load_mass;
     // The fall length is fixed on an interval when the hoist channel starts it
     // at rest and ends it without acceleration: its piece there is a cubic in
     // time whose speed and acceleration start at zero, so zero end
@@ -121,20 +125,17 @@ Snapshot snapshot(const ElasticLiftModel& model, double t, const Regime& r, std:
 void ElasticLiftModel::derivatives(double t, const Regime& r, std::span<const double> x,
                                    std::span<double> dxdt) const {
     const Snapshot s = elastic_detail::snapshot(*this, t, r, x);
-    const double rho = p_.wind.air_density;
     const Vec3 weight_per_mass(0, 0, -p_.gravity);
 
     const Vec3 hoist_on_hook = -s.hoist_rope.tension * s.hoist_rope.u;
     const Vec3 rigging_on_load = -s.rigging.tension * s.rigging.u;
-    const Vec3 hook_drag = elastic_detail::drag_force(elastic_detail::drag_factor(p_.hook_block_drag, rho),
-                                                      s.hook_velocity, s.wind);
-    const Vec3 hook_acc = (hoist_on_hook - rigging_on_load + hook_drag) / p_.hook_block_mass + weight_per_mass;
+    const Vec3 hook_drag = elastic_detail::drag_force(hook_block_drag_factor_, s.hook_velocity, s.wind);
+    const Vec3 hook_acc = (hoist_on_hook - rigging_on_load + hook_drag) * per_hook_block_mass_ + weight_per_mass;
 
     Vec3 load_acc = Vec3::Zero();  // resting on the ground: held in place
     if (!s.load_on_ground) {
-        const Vec3 load_drag = elastic_detail::drag_force(elastic_detail::drag_factor(p_.load_drag, rho),
-                                                          s.load_velocity, s.wind);
-        load_acc = (rigging_on_load + load_drag) / p_.load_mass + weight_per_mass;
+        const Vec3 load_drag = elastic_detail::drag_force(load_drag_factor_, s.load_velocity, s.wind);
+        load_acc = (rigging_on_load + load_drag) * per_load_mass_ + weight_per_mass;
     }
     for (int i = 0; i < 3; ++i) {
         dxdt[i] = x[6 + i];

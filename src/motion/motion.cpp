@@ -210,12 +210,13 @@ SupportPath::SupportPath(SupportMotion x_travel, SupportMotion y_travel, Support
     }
     std::sort(breaks_.begin(), breaks_.end());
     breaks_.erase(std::unique(breaks_.begin(), breaks_.end()), breaks_.end());
+    pieces_.resize(breaks_.size());
     for (std::size_t c = 0; c < channels_.size(); ++c) {
         const std::vector<MotionPiece>& pieces = channels_[c].pieces();
         std::size_t piece = 0;
-        for (double start : breaks_) {
-            while (piece + 1 < pieces.size() && pieces[piece + 1].start <= start) ++piece;
-            piece_[c].push_back(piece);
+        for (std::size_t k = 0; k < breaks_.size(); ++k) {
+            while (piece + 1 < pieces.size() && pieces[piece + 1].start <= breaks_[k]) ++piece;
+            pieces_[k][c] = pieces[piece];
         }
     }
 }
