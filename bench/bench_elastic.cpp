@@ -8,6 +8,7 @@
 //
 //   build/bench/plumb_bench_elastic [repeats]
 //   build/bench/plumb_bench_elastic --tolerances   (steps and errors over a grid of tolerances)
+//   build/bench/plumb_bench_elastic --speed-tolerances   (the pair with looser speed tolerances)
 //
 // Times are this thread's CPU time (the machine is shared); compare ratios
 // from one run only. docs/benchmark.md, "Elastic model against the rigid
@@ -371,10 +372,24 @@ void run_table(const char* title, Ramps ramps, double damping_ratio, Reeving ree
     for (const ToleranceSet& t : tolerance_sets) ratios(t);
 }
 
-// The tolerance study: steps, time and record errors of BDF, Adams with
-// fixed-point iteration and the explicit pair over a grid of relative and
-// per-component absolute tolerances, one run each.
-void tolerance_study(Ramps ramps, double damping_ratio, Reeving reeving) {
+// A row of a tolerance study: rtol and the absolute tolerances of positions and speeds.
+struct ToleranceRow {
+    double rtol;
+    ElasticTolerance atol;
+};
+
+// A column of a tolerance study: one integrator.
+struct ToleranceColumn {
+    const char* name;
+    IntegratorMethod method;
+    NonlinearIteration iteration;
+    int max_order;
+};
+
+// A tolerance study: steps, time and record errors of each column's
+// integrator over the rows' tolerances, `repeats` runs each (median time).
+void tolerance_study(Ramps ramps, double damping_ratio, Reeving reeving, const std::vector<ToleranceRow>& rows,
+                     const std::vector<ToleranceColumn>& columns, int repeats) {
     Config reference{"", SwingModelChoice::elastic, IntegratorMethod::runge_kutta, NonlinearIteration::newton,
                      1e-11, std::nullopt, {1e-12, 1e-12}};
     const SimulationResult ref = run(reference, ramps, damping_ratio, reeving, 1).result;
@@ -384,30 +399,15 @@ void tolerance_study(Ramps ramps, double damping_ratio, Reeving reeving) {
                 : reeving == Reeving::four_falls ? "four falls, 1 m four-leg rigging"
                                                  : "four falls, 200 kg hook block, 0.3 m four-leg rigging",
                 damping_ratio * 100);
-    std::printf("%7s %8s %8s | %-30s | %-30s | %-30s | %-30s\n", "rtol", "atol m", "atol m/s", "BDF",
-                "BDF order <= 2", "Adams fixed-point", "explicit RK");
-    struct Row {
-        double rtol;
-        ElasticTolerance atol;
-    };
-    const std::vector<Row> rows = {{1e-8, {1e-6, 1e-6}}, {1e-8, {1e-6, 1e-4}}, {1e-8, {1e-5, 1e-5}},
-                                   {1e-8, {1e-5, 1e-4}}, {1e-8, {1e-4, 1e-3}}, {1e-7, {1e-6, 1e-6}},
-                                   {1e-6, {1e-6, 1e-6}}, {1e-6, {1e-5, 1e-5}}, {1e-9, {1e-7, 1e-7}},
-                                   {1e-10, {1e-8, 1e-8}}};
-    for (const Row& row : rows) {
+    std::printf("%7s %8s %8s", "rtol", "atol m", "atol m/s");
+    for (const ToleranceColumn& k : columns) std::printf(" | %-30s", k.name);
+    std::printf("\n");
+    for (const ToleranceRow& row : rows) {
         std::printf("%7.0e %8.0e %8.0e", row.rtol, row.atol.position, row.atol.speed);
-        struct Column {
-            IntegratorMethod method;
-            NonlinearIteration iteration;
-            int max_order;
-        };
-        for (const Column& k : {Column{IntegratorMethod::cvode_bdf, NonlinearIteration::newton, 0},
-                                Column{IntegratorMethod::cvode_bdf, NonlinearIteration::newton, 2},
-                                Column{IntegratorMethod::cvode_adams, NonlinearIteration::fixed_point, 0},
-                                Column{IntegratorMethod::runge_kutta, NonlinearIteration::newton, 0}}) {
+        for (const ToleranceColumn& k : columns) {
             const Config c{"", SwingModelChoice::elastic, k.method, k.iteration, row.rtol, std::nullopt, row.atol,
                            k.max_order};
-            const Outcome o = run(c, ramps, damping_ratio, reeving, 1);
+            const Outcome o = run(c, ramps, damping_ratio, reeving, repeats);
             if (o.failed) {
                 std::printf(" | %-30s", "failed");
                 continue;
@@ -419,12 +419,43 @@ void tolerance_study(Ramps ramps, double damping_ratio, Reeving reeving) {
     }
 }
 
+const ToleranceColumn explicit_pair{"explicit RK", IntegratorMethod::runge_kutta, NonlinearIteration::newton, 0};
+
+// BDF, BDF held to order 2, Adams with fixed-point iteration and the
+// explicit pair over a grid of relative and absolute tolerances, one run each.
+void integrator_tolerance_study(Ramps ramps, double damping_ratio, Reeving reeving) {
+    const std::vector<ToleranceRow> rows = {{1e-8, {1e-6, 1e-6}}, {1e-8, {1e-6, 1e-4}}, {1e-8, {1e-5, 1e-5}},
+                                            {1e-8, {1e-5, 1e-4}}, {1e-8, {1e-4, 1e-3}}, {1e-7, {1e-6, 1e-6}},
+                                            {1e-6, {1e-6, 1e-6}}, {1e-6, {1e-5, 1e-5}}, {1e-9, {1e-7, 1e-7}},
+                                            {1e-10, {1e-8, 1e-8}}};
+    const std::vector<ToleranceColumn> columns = {
+        {"BDF", IntegratorMethod::cvode_bdf, NonlinearIteration::newton, 0},
+        {"BDF order <= 2", IntegratorMethod::cvode_bdf, NonlinearIteration::newton, 2},
+        {"Adams fixed-point", IntegratorMethod::cvode_adams, NonlinearIteration::fixed_point, 0},
+        explicit_pair};
+    tolerance_study(ramps, damping_ratio, reeving, rows, columns, 1);
+}
+
+// The pair at the default rtol and position tolerance with looser speed
+// tolerances: what the elastic default would gain and lose (median of 5).
+void speed_tolerance_study(Ramps ramps, double damping_ratio, Reeving reeving) {
+    const std::vector<ToleranceRow> rows = {{1e-7, {1e-6, 1e-6}}, {1e-7, {1e-6, 3e-6}}, {1e-7, {1e-6, 1e-5}},
+                                            {1e-7, {1e-6, 3e-5}}, {1e-7, {1e-6, 1e-4}}, {1e-7, {1e-6, 1e-3}}};
+    tolerance_study(ramps, damping_ratio, reeving, rows, {explicit_pair}, 5);
+}
+
 }  // namespace
 
 int main(int argc, char** argv) {
     if (argc > 1 && std::string(argv[1]) == "--tolerances") {
-        for (Ramps ramps : {Ramps::s_curve, Ramps::steps}) tolerance_study(ramps, 0.02, Reeving::one_fall);
-        tolerance_study(Ramps::s_curve, 0.02, Reeving::four_falls);
+        for (Ramps ramps : {Ramps::s_curve, Ramps::steps}) integrator_tolerance_study(ramps, 0.02, Reeving::one_fall);
+        integrator_tolerance_study(Ramps::s_curve, 0.02, Reeving::four_falls);
+        return 0;
+    }
+    if (argc > 1 && std::string(argv[1]) == "--speed-tolerances") {
+        for (Reeving reeving : {Reeving::one_fall, Reeving::four_falls, Reeving::very_stiff})
+            for (Ramps ramps : {Ramps::s_curve, Ramps::steps})
+                speed_tolerance_study(ramps, reeving == Reeving::very_stiff ? 0.10 : 0.02, reeving);
         return 0;
     }
     const int repeats = argc > 1 ? std::max(1, std::atoi(argv[1])) : 11;
