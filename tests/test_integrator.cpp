@@ -2,6 +2,7 @@
 // oscillator q'' = -q (q = cos t; any ODE text) and piecewise-constant forcing
 // (q'' = u_k: a parabola on each interval, continuous across breaks).
 #include <catch2/catch.hpp>
+#include <algorithm>
 #include <cmath>
 #include <limits>
 #include <thread>
@@ -101,6 +102,72 @@ TEST_CASE("piecewise forcing is integrated exactly across the breaks", "[integra
         CHECK(sampler.values[3] == Approx(-1.5).margin(1e-8));
         CHECK(sampler.values[4] == Approx(-4.25).margin(1e-8));
     }
+}
+
+TEST_CASE("a largest step shorter than the rest of an interval keeps time and state together", "[integrator]") {
+    // The same closed form as above with IntegratorSettings::max_step at 0.05 s:
+    // the step control would take each interval in one step, the cap makes it
+    // take 20 to 40, and each must advance the time by what it integrated.
+    PiecewiseForcing system;
+    system.forcing = {1.0, -2.0, 0.5};
+    const std::vector<double> breaks = {0, 1, 3, 4};
+    for (IntegratorMethod m : {IntegratorMethod::runge_kutta, IntegratorMethod::cvode_adams, IntegratorMethod::cvode_bdf}) {
+        Sampler sampler;
+        sampler.times = {0.5, 1.0, 2.0, 3.0, 4.0};
+        sampler.values.assign(sampler.times.size(), NAN);
+        IntegratorSettings settings = settings_for(m);
+        settings.max_step = 0.05;
+        const std::vector<double> x0 = {0, 0, 0, 0};
+        const IntegrationStats stats = integrate(system, x0, breaks, settings, sampler);
+        INFO("method " << static_cast<int>(m));
+        CHECK(stats.steps >= 80);  // 4 s in steps of at most 0.05 s
+        CHECK(sampler.values[0] == Approx(0.125).margin(1e-8));
+        CHECK(sampler.values[1] == Approx(0.5).margin(1e-8));
+        CHECK(sampler.values[2] == Approx(0.5).margin(1e-8));
+        CHECK(sampler.values[3] == Approx(-1.5).margin(1e-8));
+        CHECK(sampler.values[4] == Approx(-4.25).margin(1e-8));
+    }
+}
+
+namespace {
+
+// Step end times, the shortest step, and the largest error of the
+// interpolated rate at each step's midpoint against q' = t (the piecewise
+// forcing below with u = 1 throughout).
+struct StepLengths final : StepSink {
+    std::vector<double> ends;
+    double shortest = std::numeric_limits<double>::infinity();
+    double worst_rate_error = 0;
+    void on_step(const DenseStep& s) override {
+        ends.push_back(s.t_end);
+        shortest = std::min(shortest, s.t_end - s.t_begin);
+        std::vector<double> x(4);
+        const double mid = 0.5 * (s.t_begin + s.t_end);
+        s.state_at(mid, x);
+        worst_rate_error = std::max(worst_rate_error, std::fabs(x[2] - mid));
+    }
+};
+
+}  // namespace
+
+TEST_CASE("a step never leaves a sliver of rounding length before a break", "[integrator]") {
+    // A break one rounding unit after where a step ends: a step that stopped
+    // there would leave a step of 1e-16 s, whose interpolant divides rounding
+    // noise by its length (interpolated rates off by metres per second). The
+    // pair takes the break in the step before instead.
+    PiecewiseForcing system;
+    system.forcing = {1.0, 1.0};
+    IntegratorSettings settings = settings_for(IntegratorMethod::runge_kutta);
+    settings.max_step = 0.1;
+    const std::vector<double> x0 = {0, 0, 0, 0};
+    StepLengths free_run;
+    integrate(system, x0, std::vector<double>{0, 2, 3}, settings, free_run);
+    REQUIRE(free_run.ends.size() > 8);
+    const double just_after_a_step = std::nextafter(free_run.ends[7], 3.0);
+    StepLengths lengths;
+    integrate(system, x0, std::vector<double>{0, just_after_a_step, 3}, settings, lengths);
+    CHECK(lengths.shortest > 1e-6);
+    CHECK(lengths.worst_rate_error < 1e-9);  // q' = t exactly (a polynomial of degree 1)
 }
 
 TEST_CASE("the dense output between steps follows the harmonic oscillator", "[integrator]") {

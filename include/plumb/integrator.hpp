@@ -40,7 +40,8 @@ struct IntegratorSettings {
     // replaces them all; absolute_tolerances, when not empty, one by one.
     std::optional<double> absolute_tolerance;
     std::vector<double> absolute_tolerances;
-    double max_step = std::numeric_limits<double>::infinity();  // s
+    // s; the Runge-Kutta pair may exceed it by 1 % to land on a break (runge_kutta.cpp).
+    double max_step = std::numeric_limits<double>::infinity();
     // Accepted plus rejected steps over the whole run; past it the run stops
     // with a NumericalError at the time reached. 20 million steps is minutes of
     // work for the rigid model: far more than any lift needs at the default

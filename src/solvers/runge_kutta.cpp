@@ -146,8 +146,17 @@ private:
             if (stats_.steps + stats_.rejected_steps >= settings_.max_steps) {
                 throw NumericalError(step_cap_message(settings_.max_steps), t_);
             }
-            const bool last = dt >= t_stop - t_;
-            const double h = std::min({dt, t_stop - t_, settings_.max_step});
+            // A step that would end short of the break by less than a hundredth
+            // of itself takes the break instead (the rule of Hairer's DOPRI5 and
+            // DOP853 codes, from memory): the sliver
+            // it would leave is a step of rounding-level length (0.1 s added ten
+            // times ends 1e-16 s short of 1 s), and its interpolant would divide
+            // rounding noise by that length. The largest step (max_step) may so
+            // be exceeded by 1 %.
+            const double remaining = t_stop - t_;
+            double h = std::min(dt, settings_.max_step);
+            const bool last = 1.01 * h >= remaining;
+            if (last) h = remaining;
             auto f = [this](const Vector& x, Vector& dxdt, double t) { rhs(x, dxdt, t); };
             prince_dormand::step<N>(f, t_, x_, f_, h, trial_);
             // A trial step that produced a non-finite state has an infinite error.
