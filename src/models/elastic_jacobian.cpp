@@ -43,7 +43,6 @@ bool ElasticLiftModel::jacobian(double t, const Regime& r, std::span<const doubl
     Eigen::Map<RowMajor> jac(J.data());
     jac.setZero();
     const elastic_detail::Snapshot s = elastic_detail::snapshot(*this, t, r, x);
-    const double rho = p_.wind.air_density;
     const double m1 = p_.hook_block_mass, m2 = p_.load_mass;
 
     // Blocks: positions 0 (hook) 3 (load), velocities 6 (hook) 9 (load).
@@ -52,7 +51,7 @@ bool ElasticLiftModel::jacobian(double t, const Regime& r, std::span<const doubl
 
     const Mat3 hoist_d = pull_by_offset(s.hoist_rope), hoist_w = pull_by_rate(s.hoist_rope);
     const Mat3 rig_d = pull_by_offset(s.rigging), rig_w = pull_by_rate(s.rigging);
-    const Mat3 hook_drag = drag_by_velocity(elastic_detail::drag_factor(p_.hook_block_drag, rho), s.hook_velocity, s.wind);
+    const Mat3 hook_drag = drag_by_velocity(hook_block_drag_factor_, s.hook_velocity, s.wind);
 
     // Hook block: a_h = (-T1 u1 + T2 u2 + D_h) / m1 - g e_z.
     jac.block<3, 3>(vh, ph) = -(hoist_d + rig_d) / m1;
@@ -63,7 +62,7 @@ bool ElasticLiftModel::jacobian(double t, const Regime& r, std::span<const doubl
     if (!s.load_on_ground) {
         jac.block<3, 3>(pl, vl).setIdentity();
         // Load: a_l = (-T2 u2 + D_l) / m2 - g e_z.
-        const Mat3 load_drag = drag_by_velocity(elastic_detail::drag_factor(p_.load_drag, rho), s.load_velocity, s.wind);
+        const Mat3 load_drag = drag_by_velocity(load_drag_factor_, s.load_velocity, s.wind);
         jac.block<3, 3>(vl, ph) = rig_d / m2;
         jac.block<3, 3>(vl, pl) = -rig_d / m2;
         jac.block<3, 3>(vl, vh) = rig_w / m2;

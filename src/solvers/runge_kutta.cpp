@@ -148,11 +148,10 @@ private:
             }
             // A step that would end short of the break by less than a hundredth
             // of itself takes the break instead (the rule of Hairer's DOPRI5 and
-            // DOP853 codes, from memory): the sliver
-            // it would leave is a step of rounding-level length (0.1 s added ten
-            // times ends 1e-16 s short of 1 s), and its interpolant would divide
-            // rounding noise by that length. The largest step (max_step) may so
-            // be exceeded by 1 %.
+            // DOP853 codes, from memory): the sliver it would leave can be a step
+            // of rounding-level length (0.1 s added ten times ends 1e-16 s short
+            // of 1 s), whose interpolant divides rounding noise by that length.
+            // The largest step (max_step) may so be exceeded by 1 %.
             const double remaining = t_stop - t_;
             double h = std::min(dt, settings_.max_step);
             const bool last = 1.01 * h >= remaining;
